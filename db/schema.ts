@@ -9,7 +9,7 @@ import {
   double,
   timestamp,
   mysqlEnum,
-  json,
+  customType,
   uniqueIndex,
   index,
   text,
@@ -20,6 +20,16 @@ export const TOOL_KINDS = ['upcut', 'downcut', 'compression', 'straight', 'v', '
 export const HOLD_DOWNS = ['vacuum', 'tape-glue', 'clamps', 'tabs', 'skin'] as const;
 export const Z_ZEROS = ['top', 'table'] as const;
 export const JOB_STATUSES = ['draft', 'programmed', 'quoted', 'accepted', 'running', 'done', 'cancelled'] as const;
+
+// MariaDB stores JSON as LONGTEXT with a validity check; depending on server and driver
+// version a read gives a string or an already parsed value. Accept both, so reads always
+// give the object that was written.
+const jsonDoc = <T>(name: string) =>
+  customType<{ data: T; driverData: string }>({
+    dataType: () => 'json',
+    toDriver: (value) => JSON.stringify(value),
+    fromDriver: (value) => (typeof value === 'string' ? (JSON.parse(value) as T) : (value as T)),
+  })(name);
 
 const created = () => timestamp('created_at').notNull().defaultNow();
 const updated = () => timestamp('updated_at').notNull().defaultNow().onUpdateNow();
@@ -83,7 +93,8 @@ export const machines = mysqlTable(
     createdAt: created(),
     updatedAt: updated(),
   },
-  (t) => [index('machines_shop_idx').on(t.shopId)],
+  // names are unique per shop: lists and pickers show them, and the seed upserts by them
+  (t) => [uniqueIndex('machines_shop_name_unique').on(t.shopId, t.name)],
 );
 
 export const machineVersions = mysqlTable(
@@ -94,7 +105,7 @@ export const machineVersions = mysqlTable(
     machineId: int('machine_id').notNull().references(() => machines.id),
     version: int('version').notNull(),
     /** the profile as the estimator reads it (lib/kinematics profile JSON) */
-    profile: json('profile').notNull(),
+    profile: jsonDoc<Record<string, unknown>>('profile').notNull(),
     createdAt: created(),
   },
   (t) => [uniqueIndex('machine_versions_unique').on(t.machineId, t.version)],
@@ -126,7 +137,8 @@ export const materials = mysqlTable(
     sheetLengthMm: double('sheet_length_mm').notNull(),
     costPerSheetMinor: int('cost_per_sheet_minor').notNull(),
   },
-  (t) => [index('materials_shop_idx').on(t.shopId)],
+  // names are unique per shop: lists and pickers show them, and the seed upserts by them
+  (t) => [uniqueIndex('materials_shop_name_unique').on(t.shopId, t.name)],
 );
 
 export const customers = mysqlTable(

@@ -1,0 +1,17 @@
+// Jobs list. The table loads in the browser from GET /api/jobs.
+import type { Metadata } from 'next';
+import { JobsList } from '@/components/jobs/jobs-list';
+import { PageHeader } from '@/components/ui/page-header';
+import { guardPage } from '@/lib/auth/page-guard';
+
+export const metadata: Metadata = { title: 'Jobs' };
+
+export default async function JobsPage() {
+  await guardPage('jobs');
+  return (
+    <>
+      <PageHeader title="Jobs" lead="Every job of your shop, the most recently changed first." />
+      <JobsList />
+    </>
+  );
+}

@@ -1,0 +1,92 @@
+// A labelled form field with its error messages tied to it (aria-describedby,
+// aria-invalid), so a screen reader and a sighted user both learn what is wrong.
+// An error is shown as text with a marker, never by a red border alone.
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from 'react';
+
+interface FieldShellProps {
+  id: string;
+  label: string;
+  hint?: string;
+  errors?: string[];
+  children: ReactNode;
+}
+
+export function FieldShell({ id, label, hint, errors, children }: FieldShellProps) {
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="font-bold">
+        {label}
+      </label>
+      {hint ? (
+        <p id={`${id}-hint`} className="text-sm text-ink-soft">
+          {hint}
+        </p>
+      ) : null}
+      {children}
+      {errors && errors.length > 0 ? (
+        <ul id={`${id}-error`} className="text-sm font-bold text-stop" aria-live="polite">
+          {errors.map((message) => (
+            <li key={message}>
+              <span aria-hidden="true">▲ </span>
+              {message}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
+
+const controlClass =
+  'min-h-target rounded-md border-2 border-rule bg-panel px-3 text-base text-ink aria-[invalid=true]:border-stop aria-[invalid=true]:border-3';
+
+function describedBy(id: string, hint?: string, errors?: string[]) {
+  const ids = [hint ? `${id}-hint` : '', errors?.length ? `${id}-error` : ''].filter(Boolean);
+  return ids.length ? ids.join(' ') : undefined;
+}
+
+type InputFieldProps = Omit<InputHTMLAttributes<HTMLInputElement>, 'id'> & { id: string; label: string; hint?: string; errors?: string[] };
+
+export function InputField({ id, label, hint, errors, className = '', ...props }: InputFieldProps) {
+  return (
+    <FieldShell id={id} label={label} hint={hint} errors={errors}>
+      <input
+        id={id}
+        name={props.name ?? id}
+        aria-invalid={errors?.length ? true : undefined}
+        aria-describedby={describedBy(id, hint, errors)}
+        className={`${controlClass} ${className}`}
+        {...props}
+      />
+    </FieldShell>
+  );
+}
+
+type SelectFieldProps = Omit<SelectHTMLAttributes<HTMLSelectElement>, 'id'> & {
+  id: string;
+  label: string;
+  hint?: string;
+  errors?: string[];
+  options: { value: string; label: string }[];
+};
+
+export function SelectField({ id, label, hint, errors, options, className = '', ...props }: SelectFieldProps) {
+  return (
+    <FieldShell id={id} label={label} hint={hint} errors={errors}>
+      <select
+        id={id}
+        name={props.name ?? id}
+        aria-invalid={errors?.length ? true : undefined}
+        aria-describedby={describedBy(id, hint, errors)}
+        className={`${controlClass} ${className}`}
+        {...props}
+      >
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </FieldShell>
+  );
+}

@@ -1,0 +1,30 @@
+// A boxed message with a tone, a glyph and a title: the glyph and the words carry
+// the meaning, the colour only repeats it.
+import type { ReactNode } from 'react';
+
+type Tone = 'info' | 'go' | 'hold' | 'stop';
+
+const TONES: Record<Tone, { box: string; glyph: string; label: string }> = {
+  info: { box: 'border-info bg-info-tint text-info', glyph: 'i', label: 'Note' },
+  go: { box: 'border-go bg-go-tint text-go', glyph: '✓', label: 'Done' },
+  hold: { box: 'border-hold bg-hold-tint text-hold', glyph: '!', label: 'Attention' },
+  stop: { box: 'border-stop bg-stop-tint text-stop', glyph: '✕', label: 'Problem' },
+};
+
+export function Notice({ tone, title, children, role }: { tone: Tone; title: string; children?: ReactNode; role?: 'alert' | 'status' }) {
+  const t = TONES[tone];
+  return (
+    <div role={role} className={`flex gap-3 rounded-md border-l-8 border-2 p-4 ${t.box}`}>
+      <span aria-hidden="true" className="flex h-8 w-8 shrink-0 items-center justify-center rounded-full border-2 border-current font-bold">
+        {t.glyph}
+      </span>
+      <div className="text-ink">
+        <p className="font-bold">
+          <span className="sr-only">{t.label}: </span>
+          <span data-part="title">{title}</span>
+        </p>
+        {children ? <div className="mt-1">{children}</div> : null}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,64 @@
+'use client';
+// Per-user controls on the admin page: change the role, disable or enable. The
+// admin's own row offers neither (the server refuses them too).
+import { useActionState } from 'react';
+import { Button } from '@/components/ui/button';
+import { IDLE, type ActionState } from '@/lib/http/action-state';
+import { ROLES, ROLE_LABELS, type Role } from '@/lib/validation/enums';
+
+type Action = (state: ActionState, form: FormData) => Promise<ActionState>;
+
+interface Props {
+  user: { id: number; name: string; role: Role; disabled: boolean };
+  isSelf: boolean;
+  changeRole: Action;
+  setDisabled: Action;
+}
+
+function Feedback({ state }: { state: ActionState }) {
+  if (state.status === 'idle') return null;
+  const text = state.fields ? Object.values(state.fields).flat()[0] ?? state.message : state.message;
+  return (
+    <p role={state.status === 'error' ? 'alert' : 'status'} className={`text-sm font-bold ${state.status === 'error' ? 'text-stop' : 'text-go'}`}>
+      <span aria-hidden="true">{state.status === 'error' ? '▲ ' : '✓ '}</span>
+      {text}
+    </p>
+  );
+}
+
+export function UserRowControls({ user, isSelf, changeRole, setDisabled }: Props) {
+  const [roleState, roleAction, rolePending] = useActionState(changeRole, IDLE);
+  const [disabledState, disabledAction, disabledPending] = useActionState(setDisabled, IDLE);
+  if (isSelf) return <p className="text-sm text-ink-soft">This is you: another admin changes your role.</p>;
+  return (
+    <div className="flex flex-col gap-2">
+      <div className="flex flex-wrap items-center gap-2">
+        <form action={roleAction} className="flex items-center gap-2">
+          <input type="hidden" name="userId" value={user.id} />
+          <label htmlFor={`role-${user.id}`} className="sr-only">
+            Role of {user.name}
+          </label>
+          <select id={`role-${user.id}`} name="role" defaultValue={user.role} className="min-h-target rounded-md border-2 border-rule bg-panel px-2">
+            {ROLES.map((r) => (
+              <option key={r} value={r}>
+                {ROLE_LABELS[r]}
+              </option>
+            ))}
+          </select>
+          <Button type="submit" variant="secondary" disabled={rolePending}>
+            Change role
+          </Button>
+        </form>
+        <form action={disabledAction}>
+          <input type="hidden" name="userId" value={user.id} />
+          <input type="hidden" name="disabled" value={user.disabled ? 'false' : 'true'} />
+          <Button type="submit" variant={user.disabled ? 'secondary' : 'danger'} disabled={disabledPending}>
+            {user.disabled ? 'Enable' : 'Disable'}
+          </Button>
+        </form>
+      </div>
+      <Feedback state={roleState} />
+      <Feedback state={disabledState} />
+    </div>
+  );
+}

@@ -1,0 +1,218 @@
+// The graph of cuts near the sheet bottom, in XY. Every feed or arc chord that reaches within
+// the skin band of the bottom (and every tab rise between two through cuts) becomes an edge
+// between end points snapped to the chain tolerance; passes that retrace the same path land
+// on the same edge, which keeps the deepest cut and the first move that cut it through.
+// Closed loops are then read off this graph (faces.ts), whichever pass made them.
+
+const KEY_OFFSET = 2 ** 24;
+const KEY_SPAN = 2 ** 25;
+const VERTEX_SPAN = 2 ** 26;
+
+export class CutGraph {
+  readonly vx: number[] = [];
+  readonly vy: number[] = [];
+  readonly eu: number[] = [];
+  readonly ev: number[] = [];
+  /** lowest Z any pass cut this edge at */
+  readonly eZMin: number[] = [];
+  /** highest Z of the pass that cut it lowest (the top of a tab) */
+  readonly eZTop: number[] = [];
+  /** move index that first cut the edge within the band */
+  readonly eFirstNear: number[] = [];
+  /** move index that first cut the edge through, −1 while never */
+  readonly eFirstThrough: number[] = [];
+  readonly eTool: number[] = [];
+  private readonly vertexByKey = new Map<number, number>();
+  private readonly edgeByKey = new Map<number, number>();
+  private readonly invQ: number;
+
+  constructor(
+    chainToleranceMm: number,
+    private readonly throughZ: number,
+  ) {
+    this.invQ = 1 / chainToleranceMm;
+  }
+
+  get edgeCount(): number {
+    return this.eu.length;
+  }
+
+  get vertexCount(): number {
+    return this.vx.length;
+  }
+
+  private vertex(x: number, y: number): number {
+    const key = (Math.round(x * this.invQ) + KEY_OFFSET) * KEY_SPAN + (Math.round(y * this.invQ) + KEY_OFFSET);
+    let id = this.vertexByKey.get(key);
+    if (id === undefined) {
+      id = this.vx.length;
+      this.vx.push(x);
+      this.vy.push(y);
+      this.vertexByKey.set(key, id);
+    }
+    return id;
+  }
+
+  /** a straight piece lying wholly on one side of the through and band levels */
+  addPiece(x0: number, y0: number, z0: number, x1: number, y1: number, z1: number, move: number, tool: number): void {
+    const a = this.vertex(x0, y0);
+    const b = this.vertex(x1, y1);
+    if (a === b) return;
+    const u = a < b ? a : b;
+    const v = a < b ? b : a;
+    const key = u * VERTEX_SPAN + v;
+    const zLo = z0 < z1 ? z0 : z1;
+    const zHi = z0 < z1 ? z1 : z0;
+    const through = (z0 + z1) * 0.5 <= this.throughZ;
+    let e = this.edgeByKey.get(key);
+    if (e === undefined) {
+      e = this.eu.length;
+      this.edgeByKey.set(key, e);
+      this.eu.push(u);
+      this.ev.push(v);
+      this.eZMin.push(zLo);
+      this.eZTop.push(zHi);
+      this.eFirstNear.push(move);
+      this.eFirstThrough.push(through ? move : -1);
+      this.eTool.push(tool);
+      return;
+    }
+    if (zLo < this.eZMin[e]) {
+      this.eZMin[e] = zLo;
+      this.eZTop[e] = zHi;
+      this.eTool[e] = tool;
+    }
+    if (through && this.eFirstThrough[e] < 0) {
+      this.eFirstThrough[e] = move;
+      this.eTool[e] = tool;
+    }
+  }
+
+  /**
+   * Joins passes that retrace one path with different subdivisions (a lap at one depth, the
+   * next lap broken for tabs or entered by a ramp): where two edges leave a vertex in the same
+   * direction and the shorter one's far end lies on the longer, the longer is split there, and
+   * the split carries on from that point ("zipping" the two chains together). Only vertices
+   * where edges meet three or more at a time can start this, so the work follows the overlaps.
+   */
+  zipOverlaps(): void {
+    const V = this.vx.length;
+    const E = this.eu.length;
+    if (E === 0) return;
+    const deg = new Int32Array(V);
+    for (let e = 0; e < E; e++) { deg[this.eu[e]]++; deg[this.ev[e]]++; }
+    const start = new Int32Array(V + 1);
+    for (let v = 0; v < V; v++) start[v + 1] = start[v] + deg[v];
+    const fill = start.slice(0, V);
+    const csr = new Int32Array(2 * E);
+    for (let e = 0; e < E; e++) { csr[fill[this.eu[e]]++] = e; csr[fill[this.ev[e]]++] = e; }
+    const overlay = new Map<number, number[]>();
+    const adjacency = (v: number): number[] => {
+      let list = overlay.get(v);
+      if (!list) {
+        list = [];
+        for (let k = start[v]; k < start[v + 1]; k++) list.push(csr[k]);
+        overlay.set(v, list);
+      }
+      return list;
+    };
+    const tol = 1 / this.invQ;
+    const queue: number[] = [];
+    for (let v = 0; v < V; v++) if (deg[v] >= 3) queue.push(v);
+    let budget = 4 * E + 1000;
+    while (queue.length > 0 && budget-- > 0) {
+      const a = queue.pop()!;
+      const list = adjacency(a).filter((e) => this.eu[e] >= 0);
+      overlay.set(a, list);
+      if (list.length < 2) continue;
+      const ax = this.vx[a], ay = this.vy[a];
+      let found = false;
+      for (let i = 0; i < list.length && !found; i++) {
+        const e1 = list[i];
+        const p = this.eu[e1] === a ? this.ev[e1] : this.eu[e1];
+        const px = this.vx[p] - ax, py = this.vy[p] - ay;
+        const lp2 = px * px + py * py;
+        for (let j = 0; j < list.length; j++) {
+          if (j === i) continue;
+          const e2 = list[j];
+          const q = this.eu[e2] === a ? this.ev[e2] : this.eu[e2];
+          const qx = this.vx[q] - ax, qy = this.vy[q] - ay;
+          const lq2 = qx * qx + qy * qy;
+          if (lq2 <= lp2) continue;
+          const dot = px * qx + py * qy;
+          if (dot <= 0) continue;
+          const lq = Math.sqrt(lq2);
+          if (Math.abs(px * qy - py * qx) / lq > tol) continue;
+          if (dot / lq >= lq - tol) continue;
+          // split e2 = a–q at p: a–p joins e1, p–q is new (or joins an existing p–q)
+          this.eu[e2] = -1;
+          this.mergeOrAdd(a, p, e2, adjacency);
+          this.mergeOrAdd(p, q, e2, adjacency);
+          const ql = adjacency(q);
+          const at = ql.indexOf(e2);
+          if (at >= 0) ql.splice(at, 1);
+          queue.push(a, p);
+          found = true;
+          break;
+        }
+      }
+    }
+    this.compact();
+  }
+
+  /** the edge a–b with the cut record of edge src merged in */
+  private mergeOrAdd(a: number, b: number, src: number, adjacency: (v: number) => number[]): void {
+    const u = a < b ? a : b;
+    const v = a < b ? b : a;
+    const key = u * VERTEX_SPAN + v;
+    const f = this.edgeByKey.get(key);
+    if (f !== undefined && f !== src && this.eu[f] >= 0) {
+      this.mergeRecord(f, src);
+      return;
+    }
+    const id = this.eu.length;
+    this.edgeByKey.set(key, id);
+    this.eu.push(u);
+    this.ev.push(v);
+    this.eZMin.push(this.eZMin[src]);
+    this.eZTop.push(this.eZTop[src]);
+    this.eFirstNear.push(this.eFirstNear[src]);
+    this.eFirstThrough.push(this.eFirstThrough[src]);
+    this.eTool.push(this.eTool[src]);
+    adjacency(u).push(id);
+    adjacency(v).push(id);
+  }
+
+  private mergeRecord(f: number, e: number): void {
+    if (this.eZMin[e] < this.eZMin[f]) {
+      this.eZMin[f] = this.eZMin[e];
+      this.eZTop[f] = this.eZTop[e];
+      this.eTool[f] = this.eTool[e];
+    }
+    if (this.eFirstNear[e] < this.eFirstNear[f]) this.eFirstNear[f] = this.eFirstNear[e];
+    const te = this.eFirstThrough[e], tf = this.eFirstThrough[f];
+    if (te >= 0 && (tf < 0 || te < tf)) {
+      this.eFirstThrough[f] = te;
+      this.eTool[f] = this.eTool[e];
+    }
+  }
+
+  /** drops replaced edges and renumbers the rest */
+  private compact(): void {
+    const arrays = [this.eu, this.ev, this.eZMin, this.eZTop, this.eFirstNear, this.eFirstThrough, this.eTool];
+    let w = 0;
+    const n = this.eu.length;
+    for (let e = 0; e < n; e++) {
+      if (this.eu[e] < 0) continue;
+      if (w !== e) for (const a of arrays) a[w] = a[e];
+      w++;
+    }
+    for (const a of arrays) a.length = w;
+    this.edgeByKey.clear();
+  }
+
+  edgeLengthMm(e: number): number {
+    const u = this.eu[e], v = this.ev[e];
+    return Math.hypot(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
+  }
+}

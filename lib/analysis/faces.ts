@@ -1,0 +1,109 @@
+// Closed loops from the cut graph. Dangling ends (lead-ins, lead-outs, ramps that the final
+// pass retraced) are pruned first; then every bounded face of the planar graph is walked,
+// turning at each vertex to the next edge clockwise from the one it came in on, so that a
+// bounded face comes out counter-clockwise (positive area) and the outer face negative.
+import type { CutGraph } from './cut-graph';
+
+export interface GraphLoop {
+  /** vertex ids in order, counter-clockwise */
+  verts: Int32Array;
+  /** edge ids, edges[i] joins verts[i] and verts[i+1] (cyclic) */
+  edges: Int32Array;
+}
+
+export function extractLoops(g: CutGraph): GraphLoop[] {
+  const V = g.vertexCount;
+  const E = g.edgeCount;
+  if (E === 0) return [];
+  const eu = g.eu, ev = g.ev;
+  const deg = new Int32Array(V);
+  for (let e = 0; e < E; e++) {
+    deg[eu[e]]++;
+    deg[ev[e]]++;
+  }
+  const start = new Int32Array(V + 1);
+  for (let v = 0; v < V; v++) start[v + 1] = start[v] + deg[v];
+  const fill = start.slice(0, V);
+  const adj = new Int32Array(2 * E);
+  for (let e = 0; e < E; e++) {
+    adj[fill[eu[e]]++] = e;
+    adj[fill[ev[e]]++] = e;
+  }
+  // prune dangling ends
+  const alive = new Uint8Array(E).fill(1);
+  const stack: number[] = [];
+  for (let v = 0; v < V; v++) if (deg[v] === 1) stack.push(v);
+  while (stack.length > 0) {
+    const v = stack.pop()!;
+    if (deg[v] !== 1) continue;
+    for (let k = start[v]; k < start[v + 1]; k++) {
+      const e = adj[k];
+      if (!alive[e]) continue;
+      alive[e] = 0;
+      deg[v]--;
+      const w = eu[e] === v ? ev[e] : eu[e];
+      deg[w]--;
+      if (deg[w] === 1) stack.push(w);
+      break;
+    }
+  }
+  // sort live edges around each vertex by angle, remember each edge end's position
+  const order = new Int32Array(2 * E);
+  const count = new Int32Array(V);
+  const posAtU = new Int32Array(E);
+  const posAtV = new Int32Array(E);
+  const angle = new Float64Array(2 * E);
+  const vx = g.vx, vy = g.vy;
+  const tmp: number[] = [];
+  for (let v = 0; v < V; v++) {
+    if (deg[v] < 2) continue;
+    tmp.length = 0;
+    for (let k = start[v]; k < start[v + 1]; k++) if (alive[adj[k]]) tmp.push(adj[k]);
+    const base = start[v];
+    for (const e of tmp) {
+      const w = eu[e] === v ? ev[e] : eu[e];
+      angle[e * 2 + (eu[e] === v ? 0 : 1)] = Math.atan2(vy[w] - vy[v], vx[w] - vx[v]);
+    }
+    if (tmp.length > 2) {
+      tmp.sort((a, b) => angle[a * 2 + (eu[a] === v ? 0 : 1)] - angle[b * 2 + (eu[b] === v ? 0 : 1)]);
+    }
+    for (let i = 0; i < tmp.length; i++) {
+      const e = tmp[i];
+      order[base + i] = e;
+      if (eu[e] === v) posAtU[e] = i;
+      else posAtV[e] = i;
+    }
+    count[v] = tmp.length;
+  }
+  // walk faces over half-edges: h = 2e (u→v) or 2e+1 (v→u)
+  const used = new Uint8Array(2 * E);
+  const loops: GraphLoop[] = [];
+  const vs: number[] = [];
+  const es: number[] = [];
+  for (let h0 = 0; h0 < 2 * E; h0++) {
+    const e0 = h0 >> 1;
+    if (!alive[e0] || used[h0]) continue;
+    vs.length = 0;
+    es.length = 0;
+    let h = h0;
+    let area2 = 0;
+    let guard = 2 * E + 1;
+    while (!used[h] && guard-- > 0) {
+      used[h] = 1;
+      const e = h >> 1;
+      const from = h & 1 ? ev[e] : eu[e];
+      const to = h & 1 ? eu[e] : ev[e];
+      vs.push(from);
+      es.push(e);
+      area2 += vx[from] * vy[to] - vx[to] * vy[from];
+      // at `to`, the edge we came in on sits at pos; take the next one clockwise
+      const pos = eu[e] === to ? posAtU[e] : posAtV[e];
+      const n = count[to];
+      const next = order[start[to] + ((pos - 1 + n) % n)];
+      h = next * 2 + (eu[next] === to ? 0 : 1);
+    }
+    if (h !== h0 || area2 <= 1e-9) continue;
+    loops.push({ verts: Int32Array.from(vs), edges: Int32Array.from(es) });
+  }
+  return loops;
+}

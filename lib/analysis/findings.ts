@@ -1,0 +1,33 @@
+// Collects findings, keeping the first few of each kind so that a program with the same fault
+// on ten thousand lines gives a readable list; the rest are counted for the summary.
+import type { Finding, FindingKind, FindingSeverity } from './types';
+
+export class FindingSink {
+  readonly findings: Finding[] = [];
+  readonly suppressed: Partial<Record<FindingKind, number>> = {};
+  private readonly kept = new Map<FindingKind, number>();
+
+  constructor(private readonly maxPerKind: number) {}
+
+  add(kind: FindingKind, severity: FindingSeverity, line: number, message: string, part?: number): void {
+    const n = this.kept.get(kind) ?? 0;
+    if (n >= this.maxPerKind) {
+      this.suppressed[kind] = (this.suppressed[kind] ?? 0) + 1;
+      return;
+    }
+    this.kept.set(kind, n + 1);
+    const f: Finding = { kind, severity, line, message };
+    if (part !== undefined) f.part = part;
+    this.findings.push(f);
+  }
+
+  /** findings sorted by line, then errors before warnings before infos */
+  sorted(): Finding[] {
+    const rank = { error: 0, warning: 1, info: 2 } as const;
+    return this.findings.slice().sort((a, b) => a.line - b.line || rank[a.severity] - rank[b.severity]);
+  }
+}
+
+export function fmt(n: number, digits = 1): string {
+  return (Math.round(n * 10 ** digits) / 10 ** digits).toFixed(digits);
+}

@@ -1,0 +1,122 @@
+// Through-cut and program checks: from the move list (lib/gcode), the job's sheet, Z zero,
+// tools and hold-down method to the parts a program frees, whether each is held, the order
+// they come free, plunge points, and findings with line numbers. The model: feed moves at or
+// below the sheet bottom chained into closed loops in XY (cut-graph, faces), nested into parts
+// and holes (nesting, parts), hold by tabs, skin or the hold-down (hold), and per-move
+// program checks (program-checks). The result is an aid for the programmer and the operator,
+// not a guarantee.
+import type { MoveList } from '@/lib/gcode/move-list';
+import { checkCutOrder } from './cut-order';
+import { extractLoops } from './faces';
+import { FindingSink, fmt } from './findings';
+import { describeLoop } from './loops';
+import { nestLoops } from './nesting';
+import { buildParts } from './parts';
+import { ProgramChecks } from './program-checks';
+import { scanMoves } from './scan';
+import { resolveSettings } from './settings';
+import type { AnalysisInput, AnalysisPart, AnalysisResult, SheetSpec, ToolSpec } from './types';
+
+export type * from './types';
+export { DEFAULT_SETTINGS, resolveSettings, type AnalysisSettings } from './settings';
+export { vacuumLateralHoldN, vacuumNormalForceN } from './hold';
+
+export const ANALYSIS_NOTE =
+  'These checks are an aid, not a guarantee: the operator, the machine\'s manual, the shop\'s safety rules and local codes decide whether a program is safe to run.';
+
+export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
+  const s = resolveSettings(input.settings);
+  const sink = new FindingSink(s.maxFindingsPerKind);
+  const sheet = validSheet(input.sheet, sink);
+  const tools = new Map<number, ToolSpec>();
+  for (const t of input.tools ?? []) if (Number.isFinite(t.diameter) && t.diameter >= 0) tools.set(t.number, t);
+  const toolDiameter = (t: number) => tools.get(t)?.diameter ?? 0;
+  const tol = s.bottomToleranceMm;
+  const topZ = sheet ? (input.zZero === 'table' ? sheet.thicknessMm : 0) : input.zZero === 'top' ? 0 : null;
+  const bottomZ = sheet ? (input.zZero === 'table' ? 0 : -sheet.thicknessMm) : null;
+  const vacuumKpa = input.vacuumKpa !== undefined && Number.isFinite(input.vacuumKpa) && input.vacuumKpa > 0 ? input.vacuumKpa : s.defaultVacuumKpa;
+  if (!sheet && input.sheet === null) {
+    sink.add('checks-skipped', 'info', 0, 'No sheet was given, so the through-cut, hold-down, cut-order and sheet checks were not made; give the sheet size and thickness to run them.');
+  }
+
+  const checks = new ProgramChecks({ sheet, topZ, bottomZ, machine: input.machine, spoilboardAllowanceMm: s.spoilboardAllowanceMm, toleranceMm: tol, toolDiameter }, sink);
+  const scan = scanMoves(moves, {
+    throughZ: bottomZ !== null ? bottomZ + tol : null,
+    bandTopZ: bottomZ !== null ? bottomZ + s.skinMaxMm : null,
+    stockTopZ: topZ,
+    chainToleranceMm: s.chainToleranceMm,
+    arcToleranceMm: s.arcToleranceMm,
+    tabMaxLengthMm: s.tabMaxLengthMm,
+  }, checks);
+
+  for (const [t, line] of scan.toolFirstLine) {
+    if (tools.has(t)) continue;
+    sink.add('unknown-tool', 'warning', line, t === 0
+      ? `Cutting moves from line ${line} run with no tool selected (T0): the checks take its diameter as 0 mm, so kerf, plunge and hold results for those cuts are approximate.`
+      : `Tool T${t} (cutting from line ${line}) is not in the tool library: the checks take its diameter as 0 mm, so kerf, plunge and hold results for it are approximate. Add it to the library.`);
+  }
+
+  let parts: AnalysisPart[] = [];
+  let holes = 0;
+  let looseSlugs = 0;
+  if (scan.graph && sheet && bottomZ !== null && topZ !== null) {
+    scan.graph.zipOverlaps();
+    const loops = extractLoops(scan.graph).map((l) => describeLoop(scan.graph!, l, bottomZ, bottomZ + tol, moves.line));
+    const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
+    const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
+    holes = built.holes;
+    looseSlugs = built.looseSlugs;
+    checkCutOrder(moves, built.parts, topZ, tol, sink);
+    parts = built.parts.map((b) => b.part).sort((a, b) => a.id - b.id);
+    sheetLift(sheet, input, tools, scan.firstThroughByTool, moves.line, s.thinSheetMm, sink);
+  }
+
+  const findings = sink.sorted();
+  const count = (sev: string) => findings.filter((f) => f.severity === sev).length;
+  const suppressedTotal = Object.values(sink.suppressed).reduce((a, b) => a + (b ?? 0), 0);
+  return {
+    parts,
+    findings,
+    plungePoints: checks.plungePoints,
+    summary: {
+      parts: parts.length,
+      partsHeld: parts.filter((p) => p.held).length,
+      partsUnheld: parts.filter((p) => !p.held).length,
+      holes,
+      looseSlugs,
+      errors: count('error'),
+      warnings: count('warning'),
+      infos: count('info'),
+      suppressed: sink.suppressed,
+      stockTopZ: topZ,
+      sheetBottomZ: bottomZ,
+      holdDown: input.holdDown,
+      vacuumKpa: input.holdDown === 'vacuum' ? vacuumKpa : null,
+      settings: s,
+      note: suppressedTotal > 0 ? `${ANALYSIS_NOTE} ${suppressedTotal} further findings of kinds already listed are counted, not listed.` : ANALYSIS_NOTE,
+    },
+  };
+}
+
+function validSheet(sheet: SheetSpec | null, sink: FindingSink): SheetSpec | null {
+  if (!sheet) return null;
+  for (const field of ['widthMm', 'lengthMm', 'thicknessMm'] as const) {
+    const v = sheet[field];
+    if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) {
+      sink.add('checks-skipped', 'warning', 0, `sheet.${field} must be a positive number of millimetres, got ${String(v)}; the through-cut and sheet checks were not made.`);
+      return null;
+    }
+  }
+  return sheet;
+}
+
+/** up-cut spiral tools pull a thin sheet held only at its edges up off the table */
+function sheetLift(sheet: SheetSpec, input: AnalysisInput, tools: Map<number, ToolSpec>, firstThrough: Map<number, number>, line: Uint32Array, thinSheetMm: number, sink: FindingSink): void {
+  if (sheet.thicknessMm > thinSheetMm || (input.holdDown !== 'clamps' && input.holdDown !== 'tabs')) return;
+  for (const [t, move] of firstThrough) {
+    const kind = (tools.get(t)?.kind ?? '').toLowerCase().replace(/[^a-z]/g, '');
+    if (kind !== 'upcut' && kind !== 'upspiral') continue;
+    sink.add('sheet-lift', 'warning', line[move],
+      `Up-cut tool T${t} cuts through the ${fmt(sheet.thicknessMm, 1)} mm sheet from line ${line[move]} with ${input.holdDown === 'clamps' ? 'clamps at the sheet edge' : 'tabs only'} to hold it: an up-cut bit pulls a thin sheet up in the middle, so tabs can fail and parts kick loose. Use a down-cut or compression tool, vacuum, or tape and glue.`);
+  }
+}

@@ -1,0 +1,79 @@
+// What each closed loop of the cut graph is: cut through all round (frees what it encloses),
+// through except for raised spans (tabs: count, length at the base, height above the bottom),
+// or nowhere through but within the skin band (an onion skin of the thinnest layer left).
+import type { CutGraph } from './cut-graph';
+import type { GraphLoop } from './faces';
+import type { TabDetail } from './types';
+
+export interface LoopInfo {
+  xs: Float64Array;
+  ys: Float64Array;
+  /** freeing move: the move that cut the last edge through; −1 when tabs or skin remain */
+  freedMove: number;
+  /** the move that cut the last edge within the band (the loop's final pass is done) */
+  completedMove: number;
+  /** first move that cut any of it within the band */
+  firstMove: number;
+  tool: number;
+  tabs: TabDetail[];
+  skinMm: number;
+}
+
+export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, throughZ: number, line: Uint32Array): LoopInfo {
+  const n = loop.verts.length;
+  const xs = new Float64Array(n);
+  const ys = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    xs[i] = g.vx[loop.verts[i]];
+    ys[i] = g.vy[loop.verts[i]];
+  }
+  let completed = -1, first = Infinity, freed = -1, allThrough = true, anyThrough = false, freeTool = -1;
+  let skin = Infinity;
+  for (let i = 0; i < n; i++) {
+    const e = loop.edges[i];
+    const near = g.eFirstNear[e];
+    if (near > completed) completed = near;
+    if (near < first) first = near;
+    const ft = g.eFirstThrough[e];
+    if (ft < 0 || g.eZMin[e] > throughZ) {
+      allThrough = false;
+      const left = g.eZMin[e] - bottomZ;
+      if (left < skin) skin = left;
+    } else {
+      anyThrough = true;
+      if (ft > freed) {
+        freed = ft;
+        freeTool = g.eTool[e];
+      }
+    }
+  }
+  const tabs: TabDetail[] = [];
+  if (!allThrough && anyThrough) {
+    // rotate to a through edge, then read the raised runs
+    let s = 0;
+    while (g.eFirstThrough[loop.edges[s]] < 0) s++;
+    let runLen = 0, runTop = -Infinity, runFirst = Infinity;
+    for (let j = 1; j <= n; j++) {
+      const e = loop.edges[(s + j) % n];
+      const raised = g.eFirstThrough[e] < 0;
+      if (raised) {
+        runLen += g.edgeLengthMm(e);
+        if (g.eZTop[e] > runTop) runTop = g.eZTop[e];
+        if (g.eFirstNear[e] < runFirst) runFirst = g.eFirstNear[e];
+      } else if (runLen > 0) {
+        tabs.push({ lengthMm: runLen, heightMm: runTop - bottomZ, line: line[runFirst] });
+        runLen = 0; runTop = -Infinity; runFirst = Infinity;
+      }
+    }
+  }
+  return {
+    xs,
+    ys,
+    freedMove: allThrough ? freed : -1,
+    completedMove: completed,
+    firstMove: first === Infinity ? -1 : first,
+    tool: allThrough ? freeTool : g.eTool[loop.edges[0]],
+    tabs,
+    skinMm: !allThrough && !anyThrough ? Math.max(0, skin) : 0,
+  };
+}

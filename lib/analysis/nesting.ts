@@ -1,0 +1,94 @@
+// Nests the closed loops by containment (Clipper's point-in-polygon on the tool-centre paths):
+// a loop inside nothing, or inside a hole, bounds a part; a loop inside a part is a hole.
+// Two loops so close that the kerf leaves no material between them (a finishing pass beside
+// a roughing pass) are one cut and are merged.
+import { pathAreaMm2, pathPerimeterMm, pointInPath, toPath, type Path } from './geometry';
+import type { LoopInfo } from './loops';
+import type { BBox } from './types';
+
+export interface LoopNode {
+  info: LoopInfo;
+  /** tool-centre path, counter-clockwise */
+  path: Path;
+  areaMm2: number;
+  perimeterMm: number;
+  bbox: BBox;
+  radiusMm: number;
+  depth: number;
+  parent: number;
+  children: number[];
+}
+
+export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number, toleranceMm: number): LoopNode[] {
+  const all: LoopNode[] = infos.map((info) => {
+    const path = toPath(info.xs, info.ys);
+    let area = pathAreaMm2(path);
+    if (area < 0) {
+      path.reverse();
+      area = -area;
+    }
+    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    for (let i = 0; i < info.xs.length; i++) {
+      const px = info.xs[i], py = info.ys[i];
+      if (px < minX) minX = px;
+      if (px > maxX) maxX = px;
+      if (py < minY) minY = py;
+      if (py > maxY) maxY = py;
+    }
+    return { info, path, areaMm2: area, perimeterMm: pathPerimeterMm(path), bbox: { minX, minY, maxX, maxY }, radiusMm: radiusOf(info.tool), depth: 0, parent: -1, children: [] };
+  });
+  all.sort((a, b) => b.areaMm2 - a.areaMm2);
+  const kept: LoopNode[] = [];
+  const alias = new Int32Array(all.length).fill(-1);
+  for (let i = 0; i < all.length; i++) {
+    const node = all[i];
+    let parent = -1;
+    for (let j = kept.length - 1; j >= 0; j--) {
+      if (contains(kept[j], node, toleranceMm)) {
+        parent = j;
+        break;
+      }
+    }
+    if (parent >= 0) {
+      const p = kept[parent];
+      const gap = p.areaMm2 - node.areaMm2;
+      if (gap <= p.perimeterMm * (p.radiusMm + node.radiusMm + toleranceMm)) {
+        mergeInto(p, node);
+        alias[i] = parent;
+        continue;
+      }
+      node.parent = parent;
+      node.depth = p.depth + 1;
+      p.children.push(kept.length);
+    }
+    alias[i] = kept.length;
+    kept.push(node);
+  }
+  return kept;
+}
+
+function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
+  const a = outer.bbox, b = inner.bbox;
+  if (b.minX < a.minX - tol || b.maxX > a.maxX + tol || b.minY < a.minY - tol || b.maxY > a.maxY + tol) return false;
+  const xs = inner.info.xs, ys = inner.info.ys;
+  const n = xs.length;
+  const step = Math.max(1, Math.floor(n / 5));
+  for (let k = 0; k < n; k += step) {
+    const r = pointInPath(xs[k], ys[k], outer.path);
+    if (r !== -1) return r === 1;
+  }
+  return true;
+}
+
+/** the merged cut frees the part as soon as either loop is through all round */
+function mergeInto(keep: LoopNode, other: LoopNode): void {
+  const a = keep.info, b = other.info;
+  if (b.freedMove >= 0 && (a.freedMove < 0 || b.freedMove < a.freedMove)) {
+    a.freedMove = b.freedMove;
+    a.tool = b.tool;
+    a.tabs = [];
+    a.skinMm = 0;
+  }
+  a.firstMove = Math.min(a.firstMove, b.firstMove);
+  a.completedMove = Math.max(a.completedMove, b.completedMove);
+}

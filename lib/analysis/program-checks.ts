@@ -1,0 +1,160 @@
+// Program safety checks made move by move in the same pass as the cut graph: rapids in stock,
+// feeding in stock with the spindle stopped, travel and sheet limits, depth into the
+// spoilboard, feeds above the machine's limit, straight plunges, and the plunge points.
+// A fault repeated on consecutive moves is reported once, at its first line.
+import type { FindingSink } from './findings';
+import { fmt } from './findings';
+import type { MachineLimits, PlungePoint, SheetSpec } from './types';
+
+const EPS = 1e-6;
+
+export interface CheckContext {
+  sheet: SheetSpec | null;
+  /** Z of the stock top, null when unknown */
+  topZ: number | null;
+  bottomZ: number | null;
+  machine?: MachineLimits;
+  spoilboardAllowanceMm: number;
+  toleranceMm: number;
+  toolDiameter: (tool: number) => number;
+}
+
+export class ProgramChecks {
+  readonly plungePoints: PlungePoint[] = [];
+  private rapidRun = false;
+  private spindleRun = false;
+  private sheetRun = false;
+  private spoilRun = false;
+  private travelRun = false;
+  private feedRunValue = -1;
+  private plungeDepthMm = 0;
+  private plungeReported = false;
+  private minX = Infinity; private maxX = -Infinity;
+  private minY = Infinity; private maxY = -Infinity;
+  private minZ = Infinity; private maxZ = -Infinity;
+  private travelLine = 0;
+
+  constructor(private readonly c: CheckContext, private readonly sink: FindingSink) {}
+
+  /**
+   * one motion move: kind 0 rapid, 1 feed, 2 arc; (bx0..by1) is its XY extent, zLo its lowest Z
+   */
+  motion(line: number, kind: number, x0: number, y0: number, z0: number, x1: number, y1: number, z1: number,
+    bx0: number, by0: number, bx1: number, by1: number, zLo: number, spindleOn: boolean, feedMmPerMin: number, tool: number): void {
+    const c = this.c;
+    const tol = c.toleranceMm;
+    const top = c.topZ;
+    const sheet = c.sheet;
+    const overSheet = sheet === null || (bx1 >= -tol && bx0 <= sheet.widthMm + tol && by1 >= -tol && by0 <= sheet.lengthMm + tol);
+    const inStockZ = top !== null && zLo < top - tol;
+    const movesXY = bx1 - bx0 > tol || by1 - by0 > tol;
+
+    if (top !== null) {
+      // rapid in stock
+      const bad = kind === 0 && movesXY && inStockZ && overSheet;
+      if (bad && !this.rapidRun) {
+        this.sink.add('rapid-in-stock', 'error', line,
+          `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
+      }
+      this.rapidRun = bad;
+      // spindle off while feeding in stock
+      const dry = kind !== 0 && inStockZ && overSheet && !spindleOn;
+      if (dry && !this.spindleRun) {
+        this.sink.add('spindle-off', 'error', line,
+          `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
+      }
+      this.spindleRun = dry;
+      // entering the stock: plunge points and straight plunges
+      if (z0 >= top - tol && z1 < top - tol) {
+        this.plungePoints.push({ line, x: x1, y: y1, depthMm: top - z1, feedMmPerMin: kind === 0 ? 0 : feedMmPerMin, tool, ramp: movesXY, rapid: kind === 0 });
+      }
+      if (kind === 1 && !movesXY && z1 < z0 - EPS && z1 < top - tol) {
+        this.plungeDepthMm += Math.min(z0, top) - z1;
+        const d = c.toolDiameter(tool);
+        if (!this.plungeReported && d > 0 && this.plungeDepthMm > d + tol) {
+          this.plungeReported = true;
+          this.sink.add('straight-plunge', 'info', line,
+            `Straight plunge at line ${line}: ${fmt(this.plungeDepthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
+        }
+      } else if (kind !== 1 || movesXY || z1 > z0 + EPS) {
+        this.plungeDepthMm = 0;
+        this.plungeReported = false;
+      }
+    }
+
+    // cutting outside the sheet
+    if (sheet !== null && kind !== 0) {
+      const r = c.toolDiameter(tool) / 2;
+      const m = r + tol;
+      const outside = inStockZ && (bx0 < -m || by0 < -m || bx1 > sheet.widthMm + m || by1 > sheet.lengthMm + m);
+      if (outside && !this.sheetRun) {
+        this.sink.add('outside-sheet', 'warning', line,
+          `Feed move at line ${line} reaches X ${fmt(bx0 < -m ? bx0 : bx1, 2)}, Y ${fmt(by0 < -m ? by0 : by1, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
+      }
+      this.sheetRun = outside;
+    }
+    // too deep into the spoilboard
+    if (c.bottomZ !== null) {
+      const deep = zLo < c.bottomZ - c.spoilboardAllowanceMm - tol;
+      if (deep && !this.spoilRun) {
+        this.sink.add('spoilboard-depth', 'warning', line,
+          `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(c.bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(c.spoilboardAllowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
+      }
+      this.spoilRun = deep;
+    }
+    // travel and feed limits
+    const mach = c.machine;
+    if (mach) {
+      const off = mach.workOffset;
+      if (off) {
+        const out = bx0 + off.x < -tol || bx1 + off.x > mach.travel.x + tol || by0 + off.y < -tol || by1 + off.y > mach.travel.y + tol ||
+          zLo + off.z < -mach.travel.z - tol || Math.max(z0, z1) + off.z > tol;
+        if (out && !this.travelRun) {
+          this.sink.add('outside-travel', 'error', line,
+            `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
+        }
+        this.travelRun = out;
+      } else {
+        if (bx0 < this.minX) this.minX = bx0;
+        if (bx1 > this.maxX) this.maxX = bx1;
+        if (by0 < this.minY) this.minY = by0;
+        if (by1 > this.maxY) this.maxY = by1;
+        if (zLo < this.minZ) this.minZ = zLo;
+        const zHi = z0 > z1 ? z0 : z1;
+        if (zHi > this.maxZ) this.maxZ = zHi;
+        if (this.travelLine === 0 && (this.maxX - this.minX > mach.travel.x + tol || this.maxY - this.minY > mach.travel.y + tol || this.maxZ - this.minZ > mach.travel.z + tol)) {
+          this.travelLine = line;
+        }
+      }
+      if (kind !== 0 && feedMmPerMin > 0) {
+        let limit: number;
+        if (kind === 1) {
+          const dx = Math.abs(x1 - x0), dy = Math.abs(y1 - y0), dz = Math.abs(z1 - z0);
+          const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
+          limit = Infinity;
+          if (len > EPS) {
+            if (dx > EPS) limit = Math.min(limit, (mach.maxFeed.x * len) / dx);
+            if (dy > EPS) limit = Math.min(limit, (mach.maxFeed.y * len) / dy);
+            if (dz > EPS) limit = Math.min(limit, (mach.maxFeed.z * len) / dz);
+          }
+        } else {
+          limit = Math.min(mach.maxFeed.x, mach.maxFeed.y);
+        }
+        const clamped = feedMmPerMin > limit * (1 + 1e-6);
+        if (clamped && this.feedRunValue !== feedMmPerMin) {
+          this.sink.add('feed-clamped', 'info', line,
+            `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
+        }
+        this.feedRunValue = clamped ? feedMmPerMin : -1;
+      }
+    }
+  }
+
+  finish(): void {
+    const mach = this.c.machine;
+    if (mach && !mach.workOffset && this.travelLine > 0) {
+      this.sink.add('outside-travel', 'error', this.travelLine,
+        `The program spans ${fmt(this.maxX - this.minX, 0)} × ${fmt(this.maxY - this.minY, 0)} × ${fmt(this.maxZ - this.minZ, 0)} mm, more than the machine's travel of ${fmt(mach.travel.x, 0)} × ${fmt(mach.travel.y, 0)} × ${fmt(mach.travel.z, 0)} mm (first exceeded at line ${this.travelLine}): it cannot run wherever the work offset is set.`);
+    }
+  }
+}

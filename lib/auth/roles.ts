@@ -1,0 +1,65 @@
+// The role rules, in one table: which role may open which page and call which
+// action. Navigation, page guards, route handlers and server actions all read it,
+// and tests/unit/auth/roles.test.ts checks it row by row. Pure data, safe to import
+// from client components.
+//
+// | role       | pages                               | actions                                            |
+// |------------|-------------------------------------|----------------------------------------------------|
+// | admin      | jobs, machines, customers, users    | everything                                         |
+// | programmer | jobs, machines, customers           | jobs read/write, machines read/write, customers rw |
+// | estimator  | jobs, machines, customers           | jobs read/write, machines read, customers rw       |
+// | operator   | jobs, machines                      | jobs read, machines read                           |
+import type { Role } from '@/lib/validation/enums';
+
+export type { Role };
+
+export const ACTIONS = {
+  'jobs:read': ['admin', 'programmer', 'estimator', 'operator'],
+  'jobs:write': ['admin', 'programmer', 'estimator'],
+  'machines:read': ['admin', 'programmer', 'estimator', 'operator'],
+  'machines:write': ['admin', 'programmer'],
+  'customers:read': ['admin', 'programmer', 'estimator'],
+  'customers:write': ['admin', 'programmer', 'estimator'],
+  'users:read': ['admin'],
+  'users:write': ['admin'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof ACTIONS;
+
+export interface PageRule {
+  href: string;
+  label: string;
+  /** the action a role needs to see the page */
+  needs: Action;
+}
+
+/** In navigation order. */
+export const PAGES = {
+  jobs: { href: '/jobs', label: 'Jobs', needs: 'jobs:read' },
+  machines: { href: '/machines', label: 'Machines', needs: 'machines:read' },
+  customers: { href: '/customers', label: 'Customers', needs: 'customers:read' },
+  users: { href: '/admin/users', label: 'Users', needs: 'users:read' },
+} as const satisfies Record<string, PageRule>;
+
+export type PageKey = keyof typeof PAGES;
+
+export function rolesFor(action: Action): readonly Role[] {
+  return ACTIONS[action];
+}
+
+export function canDo(role: Role, action: Action): boolean {
+  return (ACTIONS[action] as readonly Role[]).includes(role);
+}
+
+export function canSee(role: Role, page: PageKey): boolean {
+  return canDo(role, PAGES[page].needs);
+}
+
+export function pagesFor(role: Role): { key: PageKey; href: string; label: string }[] {
+  return (Object.keys(PAGES) as PageKey[]).filter((key) => canSee(role, key)).map((key) => ({ key, href: PAGES[key].href, label: PAGES[key].label }));
+}
+
+/** Where a role lands after signing in: its first page. Every role can see jobs. */
+export function homeFor(role: Role): string {
+  return pagesFor(role)[0]?.href ?? '/jobs';
+}

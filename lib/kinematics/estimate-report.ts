@@ -1,0 +1,77 @@
+// The estimate as one plain JSON object: what the CLI prints with --json and what the server
+// stores with a job. Kept in one place so that every consumer gets the same fields; the
+// through-cut analysis adds its findings and parts through `extraFindings` and `parts`.
+
+import type { Diagnostic, Severity } from '../gcode/move-list';
+import type { Estimate } from './types';
+import { ENGINE_VERSION } from './version';
+
+export interface ReportFinding {
+  kind: string;
+  severity: Severity;
+  line: number;
+  message: string;
+}
+
+export interface ReportInput {
+  file: { name: string; sha256: string; lines: number; units: 'mm' | 'inch' };
+  estimate: Estimate;
+  /** the interpreter's diagnostics; their code becomes the finding's kind */
+  diagnostics: readonly Diagnostic[];
+  /** findings of other checks (through-cut analysis), appended after the diagnostics */
+  extraFindings?: readonly ReportFinding[];
+  /** parts found by the through-cut analysis, passed through as they are */
+  parts?: readonly unknown[];
+}
+
+export interface EstimateReport {
+  engine: string;
+  file: { name: string; sha256: string; lines: number; units: 'mm' | 'inch' };
+  totalSeconds: number;
+  calibratedSeconds: number;
+  breakdown: { cutting: number; air: number; rapid: number; plunge: number; dwell: number; toolChange: number; spindle: number };
+  programStops: number;
+  moves: number;
+  distance: { feed: number; rapid: number };
+  tools: { tool: number; seconds: number; feedDistance: number }[];
+  cuttingFeed: { commanded: number; achieved: number; lostShare: number };
+  findings: ReportFinding[];
+  parts: unknown[];
+}
+
+/** Rounds for output only: µs for times, nm for distances, keeps the JSON stable and short. */
+const r6 = (v: number) => Math.round(v * 1e6) / 1e6;
+const r4 = (v: number) => Math.round(v * 10000) / 10000;
+
+export function buildEstimateReport(input: ReportInput): EstimateReport {
+  const e = input.estimate;
+  const b = e.breakdown;
+  const findings: ReportFinding[] = input.diagnostics.map((d) => ({ kind: d.code, severity: d.severity, line: d.line, message: d.message }));
+  if (input.extraFindings) findings.push(...input.extraFindings);
+  return {
+    engine: ENGINE_VERSION,
+    file: { ...input.file },
+    totalSeconds: r6(e.totalSeconds),
+    calibratedSeconds: r6(e.calibratedSeconds),
+    breakdown: {
+      cutting: r6(b.cutting),
+      air: r6(b.air),
+      rapid: r6(b.rapid),
+      plunge: r6(b.plunge),
+      dwell: r6(b.dwell),
+      toolChange: r6(b.toolChange),
+      spindle: r6(b.spindle),
+    },
+    programStops: e.programStops,
+    moves: e.moves,
+    distance: { feed: r6(e.distance.feed), rapid: r6(e.distance.rapid) },
+    tools: e.tools.map((t) => ({ tool: t.tool, seconds: r6(t.seconds), feedDistance: r6(t.feedDistance) })),
+    cuttingFeed: {
+      commanded: r6(e.cuttingFeed.commandedMmPerMin),
+      achieved: r6(e.cuttingFeed.achievedMmPerMin),
+      lostShare: r4(e.cuttingFeed.lostShare),
+    },
+    findings,
+    parts: input.parts ? [...input.parts] : [],
+  };
+}

@@ -1,0 +1,48 @@
+// User administration input: creating a user, changing a role, disabling and
+// enabling. Shared by the admin page's forms, its server actions and /api/users.
+import { z } from 'zod';
+import { ROLES } from './enums';
+
+// bcrypt reads only the first 72 bytes of a password (OpenBSD bcrypt(3)); a longer
+// one would silently match any password sharing that prefix, so it is refused.
+const BCRYPT_MAX_BYTES = 72;
+
+export const emailSchema = z
+  .string({ error: 'Enter an e-mail.' })
+  .trim()
+  .toLowerCase()
+  .min(1, 'Enter an e-mail.')
+  .max(190, 'E-mail is too long (190 characters at most).')
+  .pipe(z.email('Enter an e-mail like name@example.com.'));
+
+export const newPasswordSchema = z
+  .string({ error: 'Enter a password.' })
+  .min(10, 'Use at least 10 characters.')
+  .refine((value) => new TextEncoder().encode(value).length <= BCRYPT_MAX_BYTES, 'Use at most 72 bytes.');
+
+export const roleSchema = z.enum(ROLES, { error: 'Choose a role.' });
+
+export const createUserSchema = z.object({
+  name: z.string({ error: 'Enter a name.' }).trim().min(1, 'Enter a name.').max(120, 'Name is too long (120 characters at most).'),
+  email: emailSchema,
+  role: roleSchema,
+  password: newPasswordSchema,
+});
+
+export const changeRoleSchema = z.object({ role: roleSchema });
+
+// FormData sends "true"/"false"; JSON sends booleans. z.coerce.boolean() would read
+// "false" as true, so the strings are mapped explicitly.
+export const disabledFlagSchema = z.union([z.boolean(), z.enum(['true', 'false']).transform((v) => v === 'true')], {
+  error: 'Choose enabled or disabled.',
+});
+
+export const setDisabledSchema = z.object({ disabled: disabledFlagSchema });
+
+/** PATCH /api/users/[userId]: a role change, a disable/enable, or both. */
+export const updateUserSchema = z
+  .object({ role: roleSchema.optional(), disabled: disabledFlagSchema.optional() })
+  .refine((v) => v.role !== undefined || v.disabled !== undefined, { message: 'Nothing to change.', path: ['_form'] });
+
+export type CreateUserInput = z.infer<typeof createUserSchema>;
+export type UpdateUserInput = z.infer<typeof updateUserSchema>;

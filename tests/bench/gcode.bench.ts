@@ -1,0 +1,92 @@
+// G-code engine benchmark: on one generated 1,000,000-line program, (a) bare gcode-parser
+// parseLine over every line, (b) our whole interpretation to the move list. Prints times,
+// lines per second, the ratio b/a (target ≤ 1.3), peak memory and bytes per move (target
+// ≤ 100). Also (c): the interpretation with parseLine on every line (tokenizer 'parser'),
+// to show what the fast scanner buys. Figures only; nothing here fails on a number.
+import { parseLine } from 'gcode-parser';
+import v8 from 'node:v8';
+import vm from 'node:vm';
+import { generateProgram } from '../../fixtures/program-generator';
+import { interpret, moveListBytes } from '../../lib/gcode';
+
+const LINES = Number(process.env.GCODE_BENCH_LINES ?? '') || 1_000_000;
+const ROUNDS = 3;
+
+function bareParse(text: string): number {
+  let words = 0;
+  let pos = 0;
+  const len = text.length;
+  while (pos < len) {
+    let end = text.indexOf('\n', pos);
+    if (end === -1) end = len;
+    words += parseLine(text.slice(pos, end)).words.length;
+    pos = end + 1;
+  }
+  return words;
+}
+
+// a real gc() between rounds makes the memory baseline mean something without a node flag
+v8.setFlagsFromString('--expose_gc');
+const gc = vm.runInNewContext('gc') as () => void;
+
+function mb(bytes: number): string {
+  return (bytes / 1048576).toFixed(1) + ' MB';
+}
+
+function median(a: number[]): number {
+  const s = [...a].sort((x, y) => x - y);
+  return s[Math.floor(s.length / 2)];
+}
+
+export default async function gcodeBench(): Promise<void> {
+  const t0 = performance.now();
+  const text = generateProgram(LINES, 1);
+  console.log(`program: ${LINES.toLocaleString('en')} lines, ${mb(text.length)} of text, generated in ${((performance.now() - t0) / 1000).toFixed(2)} s`);
+
+  // warm both paths so neither pays for compilation in the timed rounds
+  bareParse(text.slice(0, 2_000_000));
+  interpret(text.slice(0, 2_000_000));
+
+  const ta: number[] = [];
+  const tb: number[] = [];
+  const tc: number[] = [];
+  let peak = 0;
+  let result: ReturnType<typeof interpret> | undefined;
+  for (let r = 0; r < ROUNDS; r++) {
+    let s = performance.now();
+    bareParse(text);
+    ta.push(performance.now() - s);
+    result = undefined;
+    gc();
+    const base = process.memoryUsage();
+    const baseBytes = base.heapUsed + base.arrayBuffers;
+    let localPeak = 0;
+    s = performance.now();
+    result = interpret(text, {
+      progressEvery: 50_000,
+      onProgress: () => {
+        const m = process.memoryUsage();
+        localPeak = Math.max(localPeak, m.heapUsed + m.arrayBuffers - baseBytes);
+      },
+    });
+    tb.push(performance.now() - s);
+    const m = process.memoryUsage();
+    peak = Math.max(peak, localPeak, m.heapUsed + m.arrayBuffers - baseBytes);
+    s = performance.now();
+    interpret(text, { tokenizer: 'parser' });
+    tc.push(performance.now() - s);
+  }
+  const a = median(ta);
+  const b = median(tb);
+  if (!result) return;
+  const moves = result.moves;
+  const bytes = moveListBytes(moves);
+  console.log(`(a) bare parseLine:     ${(a / 1000).toFixed(3)} s  ${Math.round(LINES / (a / 1000)).toLocaleString('en')} lines/s  (rounds ${ta.map((t) => (t / 1000).toFixed(3)).join(' ')})`);
+  console.log(`(b) whole interpret():  ${(b / 1000).toFixed(3)} s  ${Math.round(LINES / (b / 1000)).toLocaleString('en')} lines/s  (rounds ${tb.map((t) => (t / 1000).toFixed(3)).join(' ')})`);
+  const c = median(tc);
+  console.log(`(c) interpret(), parseLine on every line: ${(c / 1000).toFixed(3)} s  ${Math.round(LINES / (c / 1000)).toLocaleString('en')} lines/s`);
+  console.log(`ratio b/a: ${(b / a).toFixed(3)}  (target ≤ 1.3);  c/a: ${(c / a).toFixed(3)}`);
+  console.log(`moves: ${moves.count.toLocaleString('en')} (${moves.arcs.count.toLocaleString('en')} arcs), diagnostics: ${result.diagnostics.length}`);
+  console.log(`move list: ${mb(bytes)}, ${(bytes / moves.count).toFixed(1)} bytes per move  (target ≤ 100)`);
+  console.log(`peak memory above baseline during interpret (heap + array buffers, sampled every 50,000 lines and at the end): ${mb(peak)}, ${(peak / moves.count).toFixed(1)} bytes per move`);
+}

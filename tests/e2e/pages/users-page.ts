@@ -1,0 +1,50 @@
+// Page object of /admin/users: the users table with its row controls and the
+// create-user form.
+import type { Page } from 'playwright-core';
+
+export class UsersPage {
+  constructor(private readonly page: Page, private readonly baseUrl: string) {}
+
+  async open(): Promise<void> {
+    await this.page.goto(`${this.baseUrl}/admin/users`);
+  }
+
+  private form() {
+    return this.page.getByRole('form', { name: 'New user' });
+  }
+
+  async create(values: { name: string; email: string; role: string; password: string }): Promise<void> {
+    const form = this.form();
+    await form.getByLabel('Name').fill(values.name);
+    await form.getByLabel('E-mail').fill(values.email);
+    await form.getByLabel('Role').selectOption(values.role);
+    await form.getByLabel('First password').fill(values.password);
+    await form.getByRole('button', { name: 'Create user' }).click();
+  }
+
+  async fieldError(label: string): Promise<string> {
+    const id = await this.form().getByLabel(label, { exact: true }).getAttribute('id');
+    const error = this.page.locator(`#${id}-error`);
+    await error.waitFor();
+    return (await error.innerText()).replace('▲', '').trim();
+  }
+
+  async statusMessage(): Promise<string> {
+    const status = this.form().locator('[role="status"] [data-part="title"]');
+    await status.waitFor();
+    return (await status.innerText()).trim();
+  }
+
+  private row(email: string) {
+    return this.page.getByRole('table', { name: 'Users of your shop' }).locator('tbody tr', { hasText: email });
+  }
+
+  async signInState(email: string): Promise<string> {
+    return (await this.row(email).locator('td').nth(3).innerText()).trim();
+  }
+
+  async toggleDisabled(email: string, expectedAfter: 'Disabled' | 'Enabled'): Promise<void> {
+    await this.row(email).getByRole('button', { name: expectedAfter === 'Disabled' ? 'Disable' : 'Enable' }).click();
+    await this.row(email).locator('td').nth(3).filter({ hasText: expectedAfter }).waitFor();
+  }
+}

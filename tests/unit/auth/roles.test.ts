@@ -1,0 +1,60 @@
+// The role table of lib/auth/roles.ts against the product's rules, written out here
+// independently as a matrix (PRODUCT.md: admin sets up users and machines; the
+// programmer builds jobs; the estimator quotes; the operator runs jobs).
+import { describe, expect, it } from 'vitest';
+import { ACTIONS, canDo, canSee, homeFor, PAGES, pagesFor, type Action } from '@/lib/auth/roles';
+import { ROLES, type Role } from '@/lib/validation/enums';
+
+const Y = true;
+const N = false;
+// columns:                   admin programmer estimator operator
+const MATRIX: Record<Action, [boolean, boolean, boolean, boolean]> = {
+  'jobs:read':               [Y, Y, Y, Y],
+  'jobs:write':              [Y, Y, Y, N],
+  'machines:read':           [Y, Y, Y, Y],
+  'machines:write':          [Y, Y, N, N],
+  'customers:read':          [Y, Y, Y, N],
+  'customers:write':         [Y, Y, Y, N],
+  'users:read':              [Y, N, N, N],
+  'users:write':             [Y, N, N, N],
+};
+
+describe('role table', () => {
+  it('covers exactly the actions of the matrix', () => {
+    expect(Object.keys(ACTIONS).sort()).toEqual(Object.keys(MATRIX).sort());
+  });
+
+  for (const [action, row] of Object.entries(MATRIX) as [Action, boolean[]][]) {
+    ROLES.forEach((role, i) => {
+      it(`${role} ${row[i] ? 'may' : 'may not'} ${action}`, () => {
+        expect(canDo(role, action)).toBe(row[i]);
+      });
+    });
+  }
+
+  it('gives the admin every action', () => {
+    for (const action of Object.keys(ACTIONS) as Action[]) expect(canDo('admin', action)).toBe(true);
+  });
+});
+
+describe('navigation', () => {
+  const expected: Record<Role, string[]> = {
+    admin: ['Jobs', 'Machines', 'Customers', 'Users'],
+    programmer: ['Jobs', 'Machines', 'Customers'],
+    estimator: ['Jobs', 'Machines', 'Customers'],
+    operator: ['Jobs', 'Machines'],
+  };
+
+  it.each(ROLES)('%s sees exactly its pages, in navigation order', (role) => {
+    expect(pagesFor(role).map((p) => p.label)).toEqual(expected[role]);
+  });
+
+  it('only the admin sees the users page, at /admin/users', () => {
+    expect(PAGES.users.href).toBe('/admin/users');
+    expect(ROLES.filter((r) => canSee(r, 'users'))).toEqual(['admin']);
+  });
+
+  it('every role starts on the jobs page', () => {
+    for (const role of ROLES) expect(homeFor(role)).toBe('/jobs');
+  });
+});

@@ -1,0 +1,132 @@
+// Properties the motion model must keep for any program (fast-check): a lower bound from the
+// speed limits alone, monotonicity in every machine limit, invariance under collinear
+// splitting, and accounting that adds up.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { estimate, limitAlong } from '@/lib/kinematics';
+import type { MachineProfile } from '@/lib/validation/machine-profile';
+import { Moves, testProfile } from './support/moves';
+
+type Step = { kind: 'feed' | 'rapid'; x: number; y: number; z: number; f: number } | { kind: 'arc'; sweep: number; r: number; f: number } | { kind: 'dwell'; s: number };
+
+const coord = fc.double({ min: -200, max: 200, noNaN: true });
+const step: fc.Arbitrary<Step> = fc.oneof(
+  { weight: 6, arbitrary: fc.record({ kind: fc.constant('feed' as const), x: coord, y: coord, z: fc.double({ min: -20, max: 5, noNaN: true }), f: fc.integer({ min: 60, max: 20000 }) }) },
+  { weight: 2, arbitrary: fc.record({ kind: fc.constant('rapid' as const), x: coord, y: coord, z: fc.double({ min: -5, max: 30, noNaN: true }), f: fc.constant(0) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('arc' as const), sweep: fc.double({ min: -6.2, max: 6.2, noNaN: true }), r: fc.double({ min: 0.5, max: 80, noNaN: true }), f: fc.integer({ min: 60, max: 20000 }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('dwell' as const), s: fc.double({ min: 0, max: 3, noNaN: true }) }) },
+);
+const programArb = fc.array(step, { minLength: 1, maxLength: 40 });
+
+const profileArb: fc.Arbitrary<MachineProfile> = fc
+  .record({
+    ax: fc.integer({ min: 100, max: 3000 }),
+    ay: fc.integer({ min: 100, max: 3000 }),
+    az: fc.integer({ min: 100, max: 3000 }),
+    fx: fc.integer({ min: 1000, max: 40000 }),
+    fz: fc.integer({ min: 1000, max: 20000 }),
+    jd: fc.double({ min: 0.001, max: 0.1, noNaN: true }),
+    n: fc.integer({ min: 0, max: 40 }),
+    rate: fc.constantFrom(0, 200, 1000, 5000),
+  })
+  .map((r) =>
+    testProfile({
+      accel: { x: r.ax, y: r.ay, z: r.az },
+      maxFeed: { x: r.fx, y: r.fx, z: r.fz },
+      rapid: { x: r.fx * 1.5, y: r.fx * 1.5, z: r.fz * 1.5 },
+      junctionDeviation: r.jd,
+      lookahead: r.n,
+      maxBlockRate: r.rate,
+    }),
+  );
+
+function build(steps: Step[]) {
+  const b = new Moves();
+  let x = 0;
+  let y = 0;
+  for (const s of steps) {
+    if (s.kind === 'feed') { b.feed(s.x, s.y, s.z, s.f); x = s.x; y = s.y; }
+    else if (s.kind === 'rapid') { b.rapid(s.x, s.y, s.z); x = s.x; y = s.y; }
+    else if (s.kind === 'arc') { b.arcXY(x - s.r, y, s.sweep, s.f); const m = b.build(); x = m.x[m.count - 1]; y = m.y[m.count - 1]; }
+    else if (s.kind === 'dwell') b.dwell(s.s);
+  }
+  return b.build();
+}
+
+const total = (steps: Step[], p: MachineProfile) => estimate(build(steps), p).totalSeconds;
+const notLess = (hi: number, lo: number) => hi >= lo * (1 - 1e-9) - 1e-12;
+
+describe('invariants (fast-check)', () => {
+  it('time ≥ Σ length / speed limit (+ dwells) over straight moves', () => {
+    const straight = fc.array(step.filter((s) => s.kind !== 'arc'), { minLength: 1, maxLength: 40 });
+    fc.assert(
+      fc.property(straight, profileArb, (steps, p) => {
+        let bound = 0;
+        let px = 0, py = 0, pz = 0;
+        for (const s of steps) {
+          if (s.kind === 'dwell') { bound += Math.fround(s.s); continue; } // aux is a Float32Array
+          const d = Math.hypot(s.x - px, s.y - py, s.z - pz);
+          if (d > 1e-9) {
+            const [ux, uy, uz] = [(s.x - px) / d, (s.y - py) / d, (s.z - pz) / d];
+            let v = s.kind === 'rapid' ? limitAlong(ux, uy, uz, p.rapid.x / 60, p.rapid.y / 60, p.rapid.z / 60) : Math.min(s.f / 60, limitAlong(ux, uy, uz, p.maxFeed.x / 60, p.maxFeed.y / 60, p.maxFeed.z / 60));
+            if (p.maxBlockRate > 0) v = Math.min(v, d * p.maxBlockRate);
+            bound += d / v;
+          }
+          px = s.x; py = s.y; pz = s.z;
+        }
+        expect(notLess(total(steps, p), bound)).toBe(true);
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('time never decreases when an acceleration, the block rate or the look-ahead is lowered', () => {
+    fc.assert(
+      fc.property(programArb, profileArb, fc.double({ min: 0.05, max: 1, noNaN: true }), fc.constantFrom('x', 'y', 'z') as fc.Arbitrary<'x' | 'y' | 'z'>, fc.integer({ min: 1, max: 40 }), fc.integer({ min: 50, max: 5000 }), (steps, p, k, axis, n, rate) => {
+        const base = total(steps, p);
+        const slowerAccel = { ...p, accel: { ...p.accel, [axis]: p.accel[axis] * k } };
+        expect(notLess(total(steps, slowerAccel), base)).toBe(true);
+        const lowerRate = p.maxBlockRate === 0 ? rate : Math.min(rate, p.maxBlockRate);
+        expect(notLess(total(steps, { ...p, maxBlockRate: lowerRate }), base)).toBe(true);
+        const shorter = p.lookahead === 0 ? n : Math.max(1, Math.min(n, p.lookahead - 1));
+        expect(notLess(total(steps, { ...p, lookahead: shorter }), base)).toBe(true);
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('splitting a straight move into collinear pieces changes time by < 0.5% (unlimited look-ahead and block rate)', () => {
+    fc.assert(
+      fc.property(programArb, profileArb, fc.nat(39), fc.integer({ min: 2, max: 50 }), (steps, p0, at, pieces) => {
+        const p = { ...p0, lookahead: 0, maxBlockRate: 0 };
+        const i = at % steps.length;
+        const s = steps[i];
+        if (s.kind !== 'feed' && s.kind !== 'rapid') return;
+        const prev = build(steps.slice(0, i));
+        const [px, py, pz] = prev.count ? [prev.x[prev.count - 1], prev.y[prev.count - 1], prev.z[prev.count - 1]] : [0, 0, 0];
+        const split: Step[] = [];
+        for (let k = 1; k <= pieces; k++) split.push({ ...s, x: px + ((s.x - px) * k) / pieces, y: py + ((s.y - py) * k) / pieces, z: pz + ((s.z - pz) * k) / pieces });
+        const a = total(steps, p);
+        const b = total([...steps.slice(0, i), ...split, ...steps.slice(i + 1)], p);
+        // 10 µs floor: pieces under the planner's 1 nm minimum block merge into the next
+        expect(Math.abs(b - a)).toBeLessThan(0.005 * a + 1e-5);
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('breakdown and per-tool seconds add up to the total; the clock never runs back', () => {
+    fc.assert(
+      fc.property(programArb, profileArb, fc.double({ min: -5, max: 20, noNaN: true }), (steps, p, top) => {
+        const e = estimate(build(steps), p, { stockTopZ: top });
+        const b = e.breakdown;
+        const sum = b.cutting + b.air + b.rapid + b.plunge + b.dwell + b.toolChange + b.spindle;
+        expect(sum).toBeCloseTo(e.totalSeconds, 9);
+        expect(e.tools.reduce((s, t) => s + t.seconds, 0)).toBeCloseTo(e.totalSeconds, 9);
+        for (let i = 1; i < e.cumulativeS.length; i++) expect(e.cumulativeS[i]).toBeGreaterThanOrEqual(e.cumulativeS[i - 1]);
+        expect(e.cumulativeS[e.cumulativeS.length - 1]).toBeCloseTo(e.totalSeconds, 9);
+      }),
+      { numRuns: 200 },
+    );
+  });
+});

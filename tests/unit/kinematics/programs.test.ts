@@ -1,0 +1,55 @@
+// Estimates of G-code text through the interpreter (lib/gcode): inch programs run at the same
+// speed as their metric twins (1 in = 25.4 mm exactly, NIST SP 811 App. B), G2/G3 circles,
+// G4 dwells in seconds (NISTIR 6556 §3.5.4), M6/M3 timed, G61 exact stop.
+import { describe, expect, it } from 'vitest';
+import { interpret } from '@/lib/gcode';
+import { estimate, restToRestDurationS } from '@/lib/kinematics';
+import { testProfile } from './support/moves';
+
+const run = (text: string, over = {}) => estimate(interpret(text).moves, testProfile(over));
+
+describe('G-code programs', () => {
+  it('an inch program equals its metric twin', () => {
+    const inch = run('G20 G90 G17\nG0 X1 Y1 Z0.2\nG1 Z-0.125 F30\nG1 X5 F120\nG3 X5 Y3 I0 J1\nG1 X1\nG0 Z1\nM30\n');
+    const mm = run('G21 G90 G17\nG0 X25.4 Y25.4 Z5.08\nG1 Z-3.175 F762\nG1 X127 F3048\nG3 X127 Y76.2 I0 J25.4\nG1 X25.4\nG0 Z25.4\nM30\n');
+    expect(inch.totalSeconds).toBeCloseTo(mm.totalSeconds, 4);
+    expect(inch.distance.feed).toBeCloseTo(mm.distance.feed, 3);
+    // 4 in at 120 in/min is a 101.6 mm move at 50.8 mm/s; it takes at least d/F = 2 s
+    expect(inch.breakdown.cutting).toBeGreaterThan(2);
+  });
+
+  it('a single inch move: 10 in at F60 (25.4 mm/s) is the 254 mm trapezoid', () => {
+    const e = run('G20\nG1 X10 F60\n');
+    expect(e.totalSeconds).toBeCloseTo(restToRestDurationS(254, 25.4, 500), 6);
+  });
+
+  it('a full circle from G2 with I J is timed at 2πr / F plus its ramps', () => {
+    // r = 40, F1200 = 20 mm/s, a = 500: ramps v/(2a) each on chords near ±Y (a ≈ 500)
+    const e = run('G21 G17 G90\nG1 X40 Y0 F1200\nG4 P0\nG2 X40 Y0 I-40 J0\n');
+    const arcS = e.cumulativeS[2] - e.cumulativeS[1];
+    expect(arcS).toBeCloseTo((2 * Math.PI * 40) / 20 + 20 / 500, 3);
+  });
+
+  it('G4 P is seconds, M6 and M3 from stopped add their times', () => {
+    const base = run('G21\nG1 X100 F3000\n');
+    const e = run('G21\nM6 T2\nM3 S18000\nG1 X100 F3000\nG4 P1.25\nM5\n', { toolChangeSeconds: 20, spindleSpinUpSeconds: 4 });
+    expect(e.totalSeconds - base.totalSeconds).toBeCloseTo(20 + 4 + 1.25, 6);
+    expect(e.tools.find((t) => t.tool === 2)?.feedDistance).toBeCloseTo(100, 6);
+  });
+
+  it('G61 stops at every corner of a square; G64 blends', () => {
+    const sq = 'G1 X100 F3000\nY100\nX0\nY0\n';
+    const g61 = run(`G21 G61\n${sq}`);
+    const g64 = run(`G21 G64\n${sq}`);
+    expect(g61.totalSeconds).toBeCloseTo(4 * restToRestDurationS(100, 50, 500), 6);
+    expect(g64.totalSeconds).toBeLessThan(g61.totalSeconds);
+  });
+
+  it('M0 counts as a program stop with no time', () => {
+    const a = run('G21\nG1 X50 F3000\nG1 X100\n');
+    const b = run('G21\nG1 X50 F3000\nM0\nG1 X100\n');
+    expect(b.programStops).toBe(1);
+    expect(b.totalSeconds).toBeCloseTo(2 * restToRestDurationS(50, 50, 500), 6); // it stops, costing the ramps
+    expect(b.totalSeconds).toBeGreaterThan(a.totalSeconds);
+  });
+});

@@ -1,0 +1,12 @@
+import { readFileSync } from 'node:fs';
+import { generateProgram } from '@/fixtures/program-generator';
+import { interpret } from '@/lib/gcode';
+import { analyze } from '@/lib/analysis';
+const machine = JSON.parse(readFileSync('/work/main/fixtures/machines/router-1.json', 'utf8'));
+const N = Number(process.argv[2] ?? 3000);
+const text = generateProgram(N, 7);
+const res = interpret(text);
+console.log(res.diagnostics.slice(0,5));
+const input = { sheet: { widthMm: 2440, lengthMm: 1220, thicknessMm: 18 }, zZero: 'top' as const, holdDown: 'vacuum' as const, vacuumKpa: 60, tools: machine.tools, machine: { travel: machine.travel, maxFeed: machine.maxFeed } };
+const out = analyze(res.moves, input);
+console.log(JSON.stringify(out.parts.slice(0, 6)), out.findings.slice(0, 8), out.summary.parts);
