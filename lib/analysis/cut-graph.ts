@@ -41,7 +41,13 @@ export class CutGraph {
     return this.vx.length;
   }
 
+  private lastX = NaN;
+  private lastY = NaN;
+  private lastId = -1;
+
   private vertex(x: number, y: number): number {
+    // consecutive pieces share an end point: skip the hash for it
+    if (x === this.lastX && y === this.lastY) return this.lastId;
     const key = (Math.round(x * this.invQ) + KEY_OFFSET) * KEY_SPAN + (Math.round(y * this.invQ) + KEY_OFFSET);
     let id = this.vertexByKey.get(key);
     if (id === undefined) {
@@ -50,6 +56,9 @@ export class CutGraph {
       this.vy.push(y);
       this.vertexByKey.set(key, id);
     }
+    this.lastX = x;
+    this.lastY = y;
+    this.lastId = id;
     return id;
   }
 

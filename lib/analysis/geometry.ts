@@ -8,7 +8,7 @@ import type { BBox } from './types';
 
 /** integer units per mm (1 µm resolution) */
 export const SCALE = 1000;
-const ARC_TOLERANCE_UNITS = 2; // 2 µm between a rounded join and its chords
+const ARC_TOLERANCE_UNITS = 5; // 5 µm between a rounded join and its chords
 
 export type { Path, Paths };
 

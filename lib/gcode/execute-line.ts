@@ -70,7 +70,9 @@ export function executeLine(ip: Interp, issues: number): void {
   }
   if (w.badWords.length) {
     const b = w.badWords[0];
-    d.add('bad-number', n, `${String.fromCharCode(65 + b.letter)}${b.raw} is not a number; the line is skipped`, t);
+    const word = `${String.fromCharCode(65 + b.letter)}${b.raw}`;
+    const at = t.toUpperCase().indexOf(word.toUpperCase());
+    d.add('bad-number', n, `${word} is not a number; the line is skipped`, t, at >= 0 ? at + 1 : undefined);
     return;
   }
   if (w.duplicates || w.tooManyCodes) {

@@ -11,19 +11,21 @@
 //   under G61 (exact stop).
 // - Corners by junction deviation (junction.ts, Jeon 2011): v = √(a·δ·sin(θ/2)/(1 − sin(θ/2))),
 //   capped by both blocks' limits; straight on keeps speed, a reversal stops.
-// - Arcs are flattened to chords within arcTolerance (arc-chords.ts); each chord is a block,
+// - Arcs are flattened to chords within arcTolerance (arc-chords.ts, block-feed.ts); each chord is a block,
 //   capped also by √(a·r), a the smaller acceleration limit of the arc plane's two axes.
 //   Chords are timed and counted at the arc's own length (helix length on a helix: F is
 //   along the path, NISTIR 6556 §2.1.2.5), their directions are the chords'.
-// - Look-ahead of N blocks and block rate R (planner.ts): a block's speed is capped at
-//   length·R so that it lasts at least 1/R s; lookahead 0 / maxBlockRate 0 mean unlimited.
+// - Look-ahead of N blocks (planner.ts): the planner only uses speed from which it could still
+//   stop within the N blocks it holds, as if the program ended N blocks ahead. Block rate R:
+//   a block's speed is capped at length·R so that it lasts at least 1/R s. lookahead 0 and
+//   maxBlockRate 0 mean unlimited.
 // - Time = Σ block times + toolChangeSeconds per M6 + spindleSpinUpSeconds per M3/M4 from
 //   stopped + dwell P. M0/M1 are counted as program stops with no time.
 //   calibratedSeconds = total × timeFactor.
 // - Breakdown: rapid; feed blocks are plunge when going down more steeply than 45°, else
 //   cutting when any part lies below the stock top, else air.
 
-import { MoveKind, type MoveList } from '../gcode/move-list';
+import { MoveFlag, MoveKind, type MoveList } from '../gcode/move-list';
 import type { MachineProfile } from '../validation/machine-profile';
 import { BlockFeed } from './block-feed';
 import { BlockPlanner } from './planner';
@@ -34,7 +36,7 @@ import type { Estimate, EstimateOptions } from './types';
 const K_RAPID = MoveKind.rapid;
 const K_FEED = MoveKind.feed;
 const K_ARC = MoveKind.arc;
-const EXACT_STOP = 1; // MoveFlag.exactStop
+const EXACT_STOP = MoveFlag.exactStop;
 
 export function estimate(moves: MoveList, profile: MachineProfile, options: EstimateOptions = {}): Estimate {
   const timeline = new Timeline(moves);

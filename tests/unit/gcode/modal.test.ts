@@ -201,7 +201,10 @@ describe('what the engine does not interpret is reported, never dropped silently
     expect(codes(r)).toContain(code);
     expect(errors(r)).toEqual([]);
   });
-  it('every code used has a documented entry', () => {
+  it('a bad number names its column (1-based)', () => {
+    expect(run('G21 F100\nG1 Y2 X1..2\nM2').diagnostics[0]).toMatchObject({ code: 'bad-number', column: 7 });
+  });
+    it('every code used has a documented entry', () => {
     const r = run('G21\nG1 X1..2\nG0 G1 X1\nX#1\nG4 P-1\nG84 X1\n');
     for (const d of r.diagnostics) expect(DIAGNOSTIC_CODES).toHaveProperty(d.code);
   });

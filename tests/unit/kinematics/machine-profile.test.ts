@@ -5,7 +5,14 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
 
-const fixture = (name: string) => JSON.parse(readFileSync(path.join(__dirname, '../../../fixtures/machines', name), 'utf8'));
+interface Raw {
+  accel: Record<string, unknown>;
+  maxFeed: Record<string, unknown>;
+  tools: Record<string, unknown>[];
+  [field: string]: unknown;
+}
+
+const fixture = (name: string): Raw => JSON.parse(readFileSync(path.join(__dirname, '../../../fixtures/machines', name), 'utf8'));
 
 describe('machine profile', () => {
   it.each(['router-1.json', 'router-2.json'])('%s is a valid profile', (name) => {
@@ -14,22 +21,22 @@ describe('machine profile', () => {
   });
 
   it('the demo machines’ tables: Router 1 1530 × 3060 mm, Router 2 1250 × 2500 mm (CONVENTIONS.md)', () => {
-    const t1 = fixture('router-1.json').travel;
-    const t2 = fixture('router-2.json').travel;
+    const t1 = fixture('router-1.json').travel as { x: number; y: number };
+    const t2 = fixture('router-2.json').travel as { x: number; y: number };
     expect([t1.x, t1.y].sort()).toEqual([1530, 3060].sort());
     expect([t2.x, t2.y].sort()).toEqual([1250, 2500].sort());
   });
 
   it.each([
-    [(p: any) => { p.accel.y = 0; }, 'accel.y: must be greater than 0'],
-    [(p: any) => { delete p.maxFeed.z; }, 'maxFeed.z: is required'],
-    [(p: any) => { p.lookahead = 2.5; }, 'lookahead: must be a whole number'],
-    [(p: any) => { p.lookahead = -1; }, 'lookahead: must be 0 (unlimited) or more'],
-    [(p: any) => { p.junctionDeviation = 'small'; }, 'junctionDeviation: must be a number'],
-    [(p: any) => { p.tools[1].kind = 'spiral'; }, 'tools[1].kind: must be one of upcut, downcut, compression, straight, v, ball'],
-    [(p: any) => { p.tools[1].number = p.tools[0].number; }, 'tools[1].number: tool 1 is listed twice'],
-    [(p: any) => { p.timeFactor = 0; }, 'timeFactor: must be greater than 0'],
-    [(p: any) => { p.name = '  '; }, 'name: must not be empty'],
+    [(p: Raw) => { p.accel.y = 0; }, 'accel.y: must be greater than 0'],
+    [(p: Raw) => { delete p.maxFeed.z; }, 'maxFeed.z: is required'],
+    [(p: Raw) => { p.lookahead = 2.5; }, 'lookahead: must be a whole number'],
+    [(p: Raw) => { p.lookahead = -1; }, 'lookahead: must be 0 (unlimited) or more'],
+    [(p: Raw) => { p.junctionDeviation = 'small'; }, 'junctionDeviation: must be a number'],
+    [(p: Raw) => { p.tools[1].kind = 'spiral'; }, 'tools[1].kind: must be one of upcut, downcut, compression, straight, v, ball'],
+    [(p: Raw) => { p.tools[1].number = p.tools[0].number; }, 'tools[1].number: tool 1 is listed twice'],
+    [(p: Raw) => { p.timeFactor = 0; }, 'timeFactor: must be greater than 0'],
+    [(p: Raw) => { p.name = '  '; }, 'name: must not be empty'],
   ])('rejects a bad field with its name (%#)', (spoil, message) => {
     const p = fixture('router-1.json');
     spoil(p);
