@@ -27,5 +27,5 @@ export async function proxy(request: NextRequest) {
 
 export const config = {
   // Static assets, shipped fonts and the favicon need no session.
-  matcher: ['/((?!_next/static|_next/image|fonts/|favicon.ico|robots.txt).*)'],
+  matcher: ['/((?!_next/static|_next/image|fonts/|favicon.ico|icon.svg|robots.txt).*)'],
 };

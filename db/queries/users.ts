@@ -7,12 +7,10 @@ import { and, asc, eq } from 'drizzle-orm';
 import bcrypt from 'bcryptjs';
 import { db } from '@/db/client';
 import { users, type Role } from '@/db/schema';
+import { BCRYPT_ROUNDS } from '@/lib/auth/password-hashing';
 import { AppError } from '@/lib/errors';
 import type { CreateUserInput } from '@/lib/validation/users';
 
-// 12 rounds: about a quarter second on a small server, the OWASP password-storage
-// cheat sheet's floor is 10.
-const BCRYPT_ROUNDS = 12;
 
 const publicColumns = {
   id: users.id,

@@ -6,11 +6,9 @@ import 'server-only';
 import bcrypt from 'bcryptjs';
 import { findUserForSignIn } from '@/db/queries/users';
 import { signInSchema } from '@/lib/validation/sign-in';
+import { DUMMY_HASH } from './password-hashing';
 import { signInLimiters } from './rate-limit';
 import type { SessionUser } from './session-user';
-
-// A bcrypt hash of a random string nobody knows; compared against when the e-mail is unknown.
-const DUMMY_HASH = '$2b$12$dZDOLcIX2l66h4fucNC0luhfznmV43OSQKEbHS3XB8FtWm4VclMZ.';
 
 export type CredentialsResult =
   | { ok: true; user: SessionUser }

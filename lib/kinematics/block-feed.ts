@@ -174,7 +174,7 @@ export class BlockFeed {
           const ux = dx * invChord;
           const uy = dy * invChord;
           const uz = dz * invChord;
-          const kind = plunging && dz * dz > dx * dx + dy * dy ? PLUNGE : (sz < pt[2] ? sz : pt[2]) < this.stockTop ? CUTTING : AIR;
+          const kind = plunging && dz < 0 && dz * dz > dx * dx + dy * dy ? PLUNGE : (sz < pt[2] ? sz : pt[2]) < this.stockTop ? CUTTING : AIR;
           this.planner.push(move, kind, blockLen, ux, uy, uz, vInner, 1 / inverseLimit(ux, uy, uz, this.iax, this.iay, this.iaz), true);
         } else {
           this.block(move, false, dx * invChord, dy * invChord, dz * invChord, dx, dy, dz, blockLen, pt[2], fMmPerS, cap, true);

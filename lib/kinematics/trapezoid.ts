@@ -18,10 +18,12 @@ export function blockDurationS(lengthMm: number, vMaxMmPerS: number, accelMmPerS
   const a = accelMmPerS2;
   const v0s = v0 * v0;
   const v1s = v1 * v1;
-  if (2 * a * d >= 2 * v * v - v0s - v1s) {
-    const r0 = 1 - v0 / v;
-    const r1 = 1 - v1 / v;
-    return d / v + (v / (2 * a)) * (r0 * r0 + r1 * r1);
+  const twoAd = 2 * a * d;
+  if (twoAd >= 2 * v * v - v0s - v1s) {
+    // d/v + (v/2a)(1 − v0/v)² + (v/2a)(1 − v1/v)², over one common denominator
+    const r0 = v - v0;
+    const r1 = v - v1;
+    return (twoAd + r0 * r0 + r1 * r1) / (2 * a * v);
   }
   const peakSq = a * d + (v0s + v1s) / 2;
   const peak = Math.sqrt(peakSq);

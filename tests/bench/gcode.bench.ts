@@ -79,6 +79,7 @@ export default async function gcodeBench(): Promise<void> {
   const a = median(ta);
   const b = median(tb);
   if (!result) return;
+
   const moves = result.moves;
   const bytes = moveListBytes(moves);
   console.log(`(a) bare parseLine:     ${(a / 1000).toFixed(3)} s  ${Math.round(LINES / (a / 1000)).toLocaleString('en')} lines/s  (rounds ${ta.map((t) => (t / 1000).toFixed(3)).join(' ')})`);
@@ -89,4 +90,14 @@ export default async function gcodeBench(): Promise<void> {
   console.log(`moves: ${moves.count.toLocaleString('en')} (${moves.arcs.count.toLocaleString('en')} arcs), diagnostics: ${result.diagnostics.length}`);
   console.log(`move list: ${mb(bytes)}, ${(bytes / moves.count).toFixed(1)} bytes per move  (target ≤ 100)`);
   console.log(`peak memory above baseline during interpret (heap + array buffers, sampled every 50,000 lines and at the end): ${mb(peak)}, ${(peak / moves.count).toFixed(1)} bytes per move`);
+  // a program full of errors: every 4th line broken in one of several ways
+  const broken = ['G1 X1..2', 'G0 G1 X5', 'G1 X#1', 'G2 X5 R1 I1', 'G1 X Y', 'O100 sub'];
+  const bad = text
+    .split('\n')
+    .map((l, k) => (k % 4 === 3 ? broken[k % broken.length] : l))
+    .join('\n');
+  const sd = performance.now();
+  const rd = interpret(bad);
+  const d = performance.now() - sd;
+  console.log(`(d) interpret(), every 4th line an error: ${(d / 1000).toFixed(3)} s, ${rd.diagnostics.length} diagnostics listed (capped per code), ${rd.moves.count.toLocaleString('en')} moves kept; d/a ${(d / a).toFixed(3)}`);
 }

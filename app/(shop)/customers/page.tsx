@@ -17,7 +17,7 @@ export default async function CustomersPage() {
   return (
     <>
       <PageHeader title="Customers" lead="Who the shop cuts for; quotes are sent to the e-mail given here." />
-      <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
+      <div className="grid items-start gap-8 lg:grid-cols-[2fr_1fr]">
         <section aria-label="Customer list">
           {customers.length === 0 ? (
             <Notice tone="info" title="No customers yet." role="status">Add the first one with the form.</Notice>

@@ -65,6 +65,8 @@ describe('estimate CLI', () => {
     expect(got.breakdown.cutting).toBeGreaterThan(0); // Z 12 is below the top at Z 18
     expect(got.parts).toEqual([]);
     expect(got.findings.length).toBe(result.diagnostics.length);
+    // G5 is no G code of NISTIR 6556 Table 4: the interpreter's diagnostic becomes a finding
+    expect(got.findings.some((f: { line: number; kind: string }) => f.line === 18 && f.kind.length > 0)).toBe(true);
     const b = got.breakdown;
     expect(b.cutting + b.air + b.rapid + b.plunge + b.dwell + b.toolChange + b.spindle).toBeCloseTo(got.totalSeconds, 4);
   });

@@ -30,6 +30,20 @@ describe('G-code programs', () => {
     expect(arcS).toBeCloseTo((2 * Math.PI * 40) / 20 + 20 / 500, 3);
   });
 
+  it('G18 and G19 arcs are walked in their planes (counter-clockwise seen from the normal, NISTIR 6556 §3.5.3)', () => {
+    // G18 (ZX): from X10 Z0 about the origin, G3 to X0 Z-10 is a quarter turn, G2 three quarters
+    const g3 = run('G21 G90\nG1 X10 F600\nG18 G3 X0 Z-10 I-10 K0\n');
+    const g2 = run('G21 G90\nG1 X10 F600\nG18 G2 X0 Z-10 I-10 K0\n');
+    expect(g3.distance.feed - 10).toBeCloseTo((Math.PI / 2) * 10, 6);
+    expect(g2.distance.feed - 10).toBeCloseTo(((3 * Math.PI) / 2) * 10, 6);
+    // G19 (YZ): from Y10 Z0 down to Y0 Z-10 about the origin: the first half of the quarter
+    // arc runs steeper than 45° down (plunge), the second half shallower (cutting)
+    const g19 = run('G21 G90\nG1 Y10 F600\nG19 G2 Y0 Z-10 J-10 K0\n');
+    expect(g19.distance.feed - 10).toBeCloseTo((Math.PI / 2) * 10, 6);
+    expect(g19.breakdown.plunge).toBeGreaterThan(0.4 * ((Math.PI / 2) * 10) / 10);
+    expect(g19.breakdown.cutting).toBeGreaterThan(0.4 * ((Math.PI / 2) * 10) / 10);
+  });
+
   it('G4 P is seconds, M6 and M3 from stopped add their times', () => {
     const base = run('G21\nG1 X100 F3000\n');
     const e = run('G21\nM6 T2\nM3 S18000\nG1 X100 F3000\nG4 P1.25\nM5\n', { toolChangeSeconds: 20, spindleSpinUpSeconds: 4 });

@@ -17,7 +17,7 @@ export default async function UsersPage() {
   return (
     <>
       <PageHeader title="Users" lead="Who can sign in to your shop, and with which role." />
-      <div className="grid gap-8 xl:grid-cols-[2fr_1fr]">
+      <div className="grid items-start gap-8 xl:grid-cols-[2fr_1fr]">
         <DataTable
           caption="Users of your shop"
           rows={users}
@@ -31,9 +31,9 @@ export default async function UsersPage() {
               header: 'Sign-in',
               cell: (u) =>
                 u.disabled ? (
-                  <span className="font-bold text-stop">✕ Disabled</span>
+                  <span className="whitespace-nowrap font-bold text-stop">✕ Disabled</span>
                 ) : (
-                  <span className="font-bold text-go">✓ Enabled</span>
+                  <span className="whitespace-nowrap font-bold text-go">✓ Enabled</span>
                 ),
             },
             {

@@ -1,0 +1,103 @@
+// Areas and containment of through-cut parts against closed forms and against an independent
+// polygon library (@flatten-js/core, exact circular arcs), and Clipper's own offsets.
+import Flatten from '@flatten-js/core';
+import { describe, expect, it } from 'vitest';
+import { analyze } from '@/lib/analysis';
+import { offsetPaths, pathsAreaMm2, pointInPath, toPath } from '@/lib/analysis/geometry';
+import { ProgramWriter } from './support/program';
+import { job } from './support/jobs';
+
+const { point, circle, Polygon, BooleanOperations } = Flatten;
+const THROUGH = [-9, -18.3];
+/** area error bound of a circle of radius R drawn as chords of sagitta ≤ e and grown by r: perimeter × e (computed), plus Clipper's 5 µm join tolerance */
+const chordBound = (R: number, r: number, e = 0.01) => 2 * Math.PI * (R + r) * (e + 0.005) + 0.01;
+
+describe('part areas: closed forms', () => {
+  it('a rectangle cut with a zero-width tool has area W·H (closed form)', () => {
+    const w = new ProgramWriter();
+    w.tool = 9;
+    w.rect(10, 20, 130, 95, THROUGH);
+    const r = analyze(w.build(), job(18));
+    expect(r.parts).toHaveLength(1);
+    expect(r.parts[0].areaMm2).toBeCloseTo(120 * 75, 6);
+    expect(r.parts[0].perimeterMm).toBeCloseTo(2 * (120 + 75), 6);
+  });
+
+  it('kerf shrink of a rectangle: (W − d)(H − d) for tool diameter d (closed form)', () => {
+    const w = new ProgramWriter();
+    w.tool = 1; // 6.35 mm
+    w.rect(0, 0, 200, 100, THROUGH);
+    const p = analyze(w.build(), job(18)).parts[0];
+    expect(p.areaMm2).toBeCloseTo((200 - 6.35) * (100 - 6.35), 4);
+    expect(p.bbox.minX).toBeCloseTo(3.175, 6);
+    expect(p.bbox.maxY).toBeCloseTo(100 - 3.175, 6);
+    expect(p.perimeterMm).toBeCloseTo(2 * (200 - 6.35 + 100 - 6.35), 4);
+  });
+
+  it('a circle cut as two G2 half arcs has area πr² within the chord error', () => {
+    const w = new ProgramWriter();
+    w.tool = 9;
+    w.circle(300, 300, 25, THROUGH);
+    const p = analyze(w.build(), job(18)).parts[0];
+    const exact = Math.PI * 25 * 25;
+    expect(p.areaMm2).toBeLessThanOrEqual(exact + 1e-6); // chords lie inside the arc
+    expect(exact - p.areaMm2).toBeLessThan(chordBound(25, 0));
+  });
+
+  it('a rectangle with a round hole: (W − d)(H − d) − π(R + d/2)², and the same from @flatten-js/core with exact arcs', () => {
+    const w = new ProgramWriter();
+    w.tool = 1;
+    w.circle(60, 30, 10, THROUGH);
+    w.rect(0, 0, 100, 60, THROUGH);
+    const r = analyze(w.build(), job(18));
+    expect(r.parts).toHaveLength(1);
+    const p = r.parts[0];
+    expect(p.holes).toBe(1);
+    const rr = 3.175;
+    const exact = (100 - 6.35) * (60 - 6.35) - Math.PI * (10 + rr) ** 2;
+    expect(Math.abs(p.areaMm2 - exact)).toBeLessThan(chordBound(10, rr));
+    const outer = new Polygon([point(rr, rr), point(100 - rr, rr), point(100 - rr, 60 - rr), point(rr, 60 - rr)]);
+    const ref = BooleanOperations.subtract(outer, new Polygon(circle(point(60, 30), 10 + rr))).area();
+    expect(Math.abs(p.areaMm2 - ref)).toBeLessThan(chordBound(10, rr));
+  });
+});
+
+describe('containment and nesting', () => {
+  it('a loop inside a part is its hole; a loop inside that hole is a part again', () => {
+    const w = new ProgramWriter();
+    w.tool = 9;
+    w.rect(40, 40, 60, 60, THROUGH); // island inside the hole
+    w.rect(20, 20, 80, 80, THROUGH); // the hole
+    w.rect(0, 0, 100, 100, THROUGH); // the part's outside
+    const r = analyze(w.build(), job(18));
+    const areas = r.parts.map((p) => p.areaMm2).sort((a, b) => a - b);
+    expect(areas[0]).toBeCloseTo(400, 6);
+    expect(areas[1]).toBeCloseTo(10000 - 3600, 6);
+    expect(r.parts.find((p) => p.areaMm2 > 1000)!.holes).toBe(1);
+    expect(r.summary.holes).toBe(1);
+    // the same answer from the independent library's point containment
+    const hole = new Polygon([point(20, 20), point(80, 20), point(80, 80), point(20, 80)]);
+    expect(hole.contains(point(50, 50))).toBe(true);
+    expect(hole.contains(point(10, 10))).toBe(false);
+  });
+
+  it('Clipper point-in-polygon and offsets agree with the closed forms used above', () => {
+    const sq = toPath([0, 10, 10, 0], [0, 0, 10, 10]);
+    expect(pointInPath(5, 5, sq)).toBe(1);
+    expect(pointInPath(15, 5, sq)).toBe(0);
+    expect(pointInPath(10, 5, sq)).toBe(-1);
+    expect(pathsAreaMm2(offsetPaths([sq], -2))).toBeCloseTo(36, 6); // (10 − 4)²
+    // grown square with round joins: A + P·r + πr² (Minkowski sum with a disc, closed form)
+    expect(pathsAreaMm2(offsetPaths([sq], 2))).toBeCloseTo(100 + 40 * 2 + Math.PI * 4, 1);
+  });
+
+  it('two laps a finishing allowance apart are one cut, not a part and a ring', () => {
+    const w = new ProgramWriter();
+    w.tool = 1;
+    w.rect(0.2, 0.2, 99.8, 59.8, [-9, -18.3]);
+    w.rect(0, 0, 100, 60, [-18.3]);
+    const r = analyze(w.build(), job(18));
+    expect(r.parts).toHaveLength(1);
+    expect(r.parts[0].holes).toBe(0);
+  });
+});
