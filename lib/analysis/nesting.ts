@@ -39,7 +39,6 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
   });
   all.sort((a, b) => b.areaMm2 - a.areaMm2);
   const kept: LoopNode[] = [];
-  const alias = new Int32Array(all.length).fill(-1);
   for (let i = 0; i < all.length; i++) {
     const node = all[i];
     let parent = -1;
@@ -52,16 +51,16 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
     if (parent >= 0) {
       const p = kept[parent];
       const gap = p.areaMm2 - node.areaMm2;
-      if (gap <= p.perimeterMm * (p.radiusMm + node.radiusMm + toleranceMm)) {
+      // the same contour twice: no material between them, and about the same size (a hole that
+      // eats its part is not the part's twin)
+      if (gap <= p.perimeterMm * (p.radiusMm + node.radiusMm + toleranceMm) && node.areaMm2 >= 0.9 * p.areaMm2) {
         mergeInto(p, node);
-        alias[i] = parent;
         continue;
       }
       node.parent = parent;
       node.depth = p.depth + 1;
       p.children.push(kept.length);
     }
-    alias[i] = kept.length;
     kept.push(node);
   }
   return kept;

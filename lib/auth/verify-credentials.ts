@@ -38,9 +38,10 @@ export async function verifyCredentials(raw: unknown, ip: string): Promise<Crede
 }
 
 /**
- * The client address for the per-IP limit. `next start` sets x-forwarded-for itself;
- * behind a reverse proxy, that proxy must overwrite the header, or a visitor could
- * choose their own key.
+ * The client address for the per-IP limit. `next start` fills x-forwarded-for with the
+ * socket address only when the header is missing (next/dist/server/base-server.js), so
+ * a visitor reaching it directly could pick their own key: in production a reverse
+ * proxy in front must overwrite the header. The per-e-mail limit does not depend on it.
  */
 export function clientIp(headers: Record<string, string | string[] | undefined> | undefined): string {
   const raw = headers?.['x-forwarded-for'] ?? headers?.['x-real-ip'];

@@ -22,7 +22,11 @@ export class SignInPage {
     return (await title.innerText()).trim();
   }
 
+  /** Focus moves to the message one frame after it appears; wait for that, briefly. */
   async isFocusedOnError(): Promise<boolean> {
-    return this.page.evaluate(() => document.activeElement?.getAttribute('data-testid') === 'sign-in-error');
+    return this.page
+      .waitForFunction(() => document.activeElement?.getAttribute('data-testid') === 'sign-in-error', undefined, { timeout: 5000 })
+      .then(() => true)
+      .catch(() => false);
   }
 }

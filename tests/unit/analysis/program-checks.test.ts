@@ -1,0 +1,143 @@
+// Program safety checks move by move: each kind on a small program with a known answer.
+import { describe, expect, it } from 'vitest';
+import { analyze, type AnalysisInput } from '@/lib/analysis';
+import { ProgramWriter } from './support/program';
+import { job } from './support/jobs';
+
+const machine: NonNullable<AnalysisInput['machine']> = {
+  travel: { x: 3060, y: 1530, z: 180 },
+  maxFeed: { x: 30000, y: 30000, z: 10000 },
+};
+const ofKind = (r: ReturnType<typeof analyze>, kind: string) => r.findings.filter((f) => f.kind === kind);
+
+describe('program checks', () => {
+  it('spindle-off: feeding into the stock with the spindle stopped, reported once per run', () => {
+    const w = new ProgramWriter();
+    w.spindleOff();
+    w.rapid(10, 10, 5).feed(10, 10, -3, 600).feed(50, 10, -3).feed(50, 50, -3).retract();
+    const f = ofKind(analyze(w.build(), job(18)), 'spindle-off');
+    expect(f).toHaveLength(1);
+    expect(f[0]).toMatchObject({ severity: 'error', line: 3 });
+  });
+
+  it('no spindle-off when the spindle turns', () => {
+    const w = new ProgramWriter();
+    w.rapid(10, 10, 5).feed(10, 10, -3, 600).feed(50, 10, -3).retract();
+    expect(ofKind(analyze(w.build(), job(18)), 'spindle-off')).toHaveLength(0);
+  });
+
+  it('spoilboard-depth: 2 mm below the bottom is past the 1 mm allowance; 0.3 mm is not', () => {
+    const w = new ProgramWriter();
+    w.rect(0, 0, 50, 50, [-18.3]);
+    w.rect(100, 0, 150, 50, [-20]);
+    const f = ofKind(analyze(w.build(), job(18)), 'spoilboard-depth');
+    expect(f).toHaveLength(1);
+    expect(f[0].severity).toBe('warning');
+    expect(f[0].message).toMatch(/2\.00 mm below the sheet bottom/);
+  });
+
+  it('outside-sheet: cutting past the sheet edge by more than the tool radius', () => {
+    const w = new ProgramWriter();
+    w.rect(1200, 10, 1240, 40, [-5]);
+    const r = analyze(w.build(), job(18));
+    expect(ofKind(r, 'outside-sheet')).toHaveLength(1);
+    const ok = new ProgramWriter();
+    ok.rect(1200, 10, 1222, 40, [-5]); // 2 mm past the edge, within the 3.175 mm radius
+    expect(ofKind(analyze(ok.build(), job(18)), 'outside-sheet')).toHaveLength(0);
+  });
+
+  it('outside-travel with a work offset: machine X = work X + offset', () => {
+    const w = new ProgramWriter();
+    w.rapid(100, 100, 5).feed(100, 100, -1, 600).feed(3000, 100, -1).retract();
+    const near = analyze(w.build(), job(18, 'tape-glue', { machine: { ...machine, workOffset: { x: 100, y: 100, z: -100 } } }));
+    expect(ofKind(near, 'outside-travel')).toHaveLength(1);
+    expect(ofKind(near, 'outside-travel')[0].severity).toBe('error');
+    const fine = analyze(w.build(), job(18, 'tape-glue', { machine: { ...machine, workOffset: { x: 10, y: 100, z: -100 } } }));
+    expect(ofKind(fine, 'outside-travel')).toHaveLength(0);
+  });
+
+  it('outside-travel without a work offset: the program spans more than the travel', () => {
+    const w = new ProgramWriter();
+    w.rapid(0, 0, 5).rapid(3100, 0, 5);
+    expect(ofKind(analyze(w.build(), job(18, 'tape-glue', { machine })), 'outside-travel')).toHaveLength(1);
+  });
+
+  it('feed-clamped: F40000 along X is above the 30000 mm/min X limit; along a 45° diagonal the limit is 30000·√2', () => {
+    const w = new ProgramWriter();
+    w.rapid(0, 0, 5).feed(500, 0, 5, 40000).feed(1000, 500, 5, 40000).feed(1500, 500, 5, 40000);
+    const f = ofKind(analyze(w.build(), job(18, 'tape-glue', { machine })), 'feed-clamped');
+    expect(f.map((x) => x.line)).toEqual([2, 4]);
+    expect(f[0].severity).toBe('info');
+  });
+
+  it('straight-plunge: 10 mm straight down with a 6.35 mm tool; a ramp is not', () => {
+    const w = new ProgramWriter();
+    w.rapid(10, 10, 5).feed(10, 10, -10, 600).retract();
+    w.rapid(100, 10, 5).feed(100, 10, 0, 600).feed(150, 10, -10, 600).retract();
+    const r = analyze(w.build(), job(18));
+    const f = ofKind(r, 'straight-plunge');
+    expect(f).toHaveLength(1);
+    expect(f[0].line).toBe(2);
+    expect(r.plungePoints).toHaveLength(2);
+    expect(r.plungePoints[0]).toMatchObject({ line: 2, x: 10, y: 10, depthMm: 10, feedMmPerMin: 600, ramp: false });
+    expect(r.plungePoints[1]).toMatchObject({ line: 6, x: 150, depthMm: 10, ramp: true });
+  });
+
+  it('sheet-lift: an up-cut tool through a 3 mm sheet under clamps; not under vacuum, not with a down-cut tool', () => {
+    const make = (tool: number) => {
+      const w = new ProgramWriter();
+      w.tool = tool;
+      w.rect(10, 10, 200, 200, [-3.2]);
+      return w.build();
+    };
+    const lift = ofKind(analyze(make(2), job(3, 'clamps')), 'sheet-lift');
+    expect(lift).toHaveLength(1);
+    expect(lift[0].severity).toBe('warning');
+    expect(ofKind(analyze(make(2), job(3, 'vacuum')), 'sheet-lift')).toHaveLength(0);
+    expect(ofKind(analyze(make(3), job(3, 'clamps')), 'sheet-lift')).toHaveLength(0);
+    expect(ofKind(analyze(make(2), job(18, 'clamps')), 'sheet-lift')).toHaveLength(0);
+  });
+
+  it('a tool missing from the library is a finding, and the checks go on with diameter 0', () => {
+    const w = new ProgramWriter();
+    w.tool = 7;
+    w.rect(0, 0, 100, 50, [-18.3]);
+    const r = analyze(w.build(), job(18));
+    expect(ofKind(r, 'unknown-tool')).toHaveLength(1);
+    expect(r.parts[0].areaMm2).toBeCloseTo(5000, 6);
+  });
+
+  it('no sheet: an info finding says the through-cut checks were skipped; bad sheet fields are named', () => {
+    const w = new ProgramWriter();
+    w.rect(0, 0, 100, 50, [-18.3]);
+    const none = analyze(w.build(), { ...job(18), sheet: null });
+    expect(none.parts).toEqual([]);
+    expect(ofKind(none, 'checks-skipped')).toHaveLength(1);
+    const bad = analyze(w.build(), { ...job(18), sheet: { widthMm: 100, lengthMm: 100, thicknessMm: -3 } });
+    expect(ofKind(bad, 'checks-skipped')[0].message).toContain('sheet.thicknessMm');
+  });
+
+  it('Z zero on the table: the bottom is Z 0 and the top Z T', () => {
+    const w = new ProgramWriter({ x: 0, y: 0, z: 30 });
+    w.safeZ = 25;
+    w.rect(0, 0, 100, 50, [9, -0.2]);
+    const r = analyze(w.build(), { ...job(18, 'clamps'), zZero: 'table' });
+    expect(r.parts).toHaveLength(1);
+    expect(r.summary.stockTopZ).toBe(18);
+    expect(r.summary.sheetBottomZ).toBe(0);
+  });
+
+  it('the summary says the check is an aid, not a guarantee', () => {
+    const w = new ProgramWriter();
+    w.rect(0, 0, 100, 50, [-18.3]);
+    expect(analyze(w.build(), job(18)).summary.note).toMatch(/aid, not a guarantee.*operator.*manual.*safety rules/);
+  });
+
+  it('many findings of one kind are capped and counted in the summary', () => {
+    const w = new ProgramWriter();
+    for (let i = 0; i < 40; i++) w.rapid(10 + i * 20, 10, 5).rapid(10 + i * 20, 10, -2).rapid(20 + i * 20, 10, -2).rapid(20 + i * 20, 10, 5);
+    const r = analyze(w.build(), job(18));
+    expect(ofKind(r, 'rapid-in-stock')).toHaveLength(25);
+    expect(r.summary.suppressed['rapid-in-stock']).toBe(15);
+  });
+});

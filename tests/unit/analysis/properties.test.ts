@@ -1,0 +1,93 @@
+// Properties: a rigid move or a mirror of the whole program changes no area, count or verdict;
+// reversing a loop's direction does not change its area (areas are of regions, not of paths).
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { analyze, type HoldDownMethod } from '@/lib/analysis';
+import { pathAreaMm2, toPath } from '@/lib/analysis/geometry';
+import { ProgramWriter, transformMoves } from './support/program';
+import { job } from './support/jobs';
+
+interface Spec { parts: Array<{ x: number; y: number; w: number; h: number; hole: boolean; tabs: boolean; holeLast: boolean }>; }
+
+const partArb = fc.record({
+  x: fc.integer({ min: 0, max: 9 }), y: fc.integer({ min: 0, max: 9 }),
+  w: fc.integer({ min: 20, max: 90 }), h: fc.integer({ min: 20, max: 90 }),
+  hole: fc.boolean(), tabs: fc.boolean(), holeLast: fc.boolean(),
+});
+const specArb = fc.record({ parts: fc.uniqueArray(partArb, { minLength: 1, maxLength: 6, selector: (p) => `${p.x},${p.y}` }) });
+
+function program(s: Spec) {
+  const w = new ProgramWriter();
+  w.tool = 1;
+  for (const p of s.parts) {
+    const x0 = 100 + p.x * 100, y0 = 100 + p.y * 100;
+    const hole = () => w.circle(x0 + p.w / 2, y0 + p.h / 2, Math.min(p.w, p.h) / 5, [-9, -18.3]);
+    if (p.hole && !p.holeLast) hole();
+    w.rect(x0, y0, x0 + p.w, y0 + p.h, [-9, -18.3], p.tabs ? { tabs: { perSide: 1, lengthMm: 6, heightMm: 3 } } : {});
+    if (p.hole && p.holeLast) hole();
+  }
+  return w.build();
+}
+
+function digest(r: ReturnType<typeof analyze>) {
+  return {
+    areas: r.parts.map((p) => Math.round(p.areaMm2 * 10) / 10).sort((a, b) => a - b),
+    verdicts: r.parts.map((p) => `${p.holdBy}/${p.held}/${p.tabs}/${p.holes}`).sort(),
+    findings: r.findings.map((f) => `${f.kind}@${f.line}`).sort(),
+  };
+}
+
+describe('invariance under translation and mirroring (fast-check)', () => {
+  const methods: HoldDownMethod[] = ['vacuum', 'tape-glue', 'clamps', 'tabs'];
+  it('translating a program does not change areas, counts or verdicts', () => {
+    fc.assert(fc.property(specArb, fc.integer({ min: -80, max: 80 }), fc.integer({ min: -80, max: 80 }), fc.constantFrom(...methods), (s, dx, dy, m) => {
+      const base = program(s);
+      const a = digest(analyze(base, job(18, m)));
+      const b = digest(analyze(transformMoves(base, dx + 0.25, dy - 0.125), job(18, m)));
+      expect(b).toEqual(a);
+    }), { numRuns: 30 });
+  });
+
+  it('mirroring a program (x → 1200 − x, arcs reversed) does not change areas, counts or verdicts', () => {
+    fc.assert(fc.property(specArb, fc.constantFrom(...methods), (s, m) => {
+      const base = program(s);
+      const a = digest(analyze(base, job(18, m)));
+      const b = digest(analyze(transformMoves(base, 0, 0, 1200), job(18, m)));
+      expect(b).toEqual(a);
+    }), { numRuns: 30 });
+  });
+});
+
+describe('loop direction', () => {
+  it('reversing a polygon changes the sign of Clipper\'s area, not its size', () => {
+    fc.assert(fc.property(fc.array(fc.tuple(fc.integer({ min: -500, max: 500 }), fc.integer({ min: -500, max: 500 })), { minLength: 3, maxLength: 12 }), (pts) => {
+      const xs = pts.map((p) => p[0]), ys = pts.map((p) => p[1]);
+      const a = pathAreaMm2(toPath(xs, ys));
+      const b = pathAreaMm2(toPath([...xs].reverse(), [...ys].reverse()));
+      expect(b).toBeCloseTo(-a, 6);
+    }));
+  });
+
+  it('a part cut clockwise has the same area and verdict as cut counter-clockwise', () => {
+    fc.assert(fc.property(fc.integer({ min: 30, max: 200 }), fc.integer({ min: 30, max: 200 }), fc.boolean(), (w, h, ccwCircle) => {
+      const a = new ProgramWriter();
+      a.circle(50 + w / 2, 50 + h / 2, 5, [-18.3], { ccw: ccwCircle });
+      a.rect(50, 50, 50 + w, 50 + h, [-9, -18.3]);
+      const b = new ProgramWriter();
+      b.circle(50 + w / 2, 50 + h / 2, 5, [-18.3], { ccw: !ccwCircle });
+      b.rect(50, 50, 50 + w, 50 + h, [-9, -18.3], { cw: true });
+      const ra = analyze(a.build(), job(18, 'vacuum')), rb = analyze(b.build(), job(18, 'vacuum'));
+      expect(rb.parts).toHaveLength(1);
+      expect(rb.parts[0].areaMm2).toBeCloseTo(ra.parts[0].areaMm2, 6);
+      expect(rb.parts[0].holdBy).toBe(ra.parts[0].holdBy);
+      expect(rb.parts[0].holes).toBe(1);
+    }), { numRuns: 40 });
+  });
+
+  it('a hole whose kerf meets the outside kerf leaves no part (nothing is left between the cuts)', () => {
+    const a = new ProgramWriter();
+    a.circle(57.5, 57.5, 5, [-18.3]);
+    a.rect(50, 50, 65, 65, [-18.3]); // 15 mm square tool path, 6.35 mm tool: the hole's kerf reaches the outside
+    expect(analyze(a.build(), job(18, 'vacuum')).parts).toEqual([]);
+  });
+});
