@@ -1,5 +1,7 @@
 // The signed-in app: navigation for the user's role above every page. The proxy
 // already keeps signed-out visitors out; this re-checks against the user row.
+// No loading.tsx in this group on purpose: streaming would start before a page calls
+// forbidden(), and the 403 page would then go out with status 200.
 import { redirect } from 'next/navigation';
 import type { ReactNode } from 'react';
 import { AppNav } from '@/components/shell/app-nav';

@@ -3,7 +3,7 @@
 // empty field is named at once), then posts to next-auth's credentials callback.
 // A failure shows one generic message and puts focus on it.
 import { signIn } from 'next-auth/react';
-import { useRef, useState, type FormEvent } from 'react';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import { InputField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
@@ -17,6 +17,12 @@ export function SignInForm({ callbackPath, initialError }: { callbackPath: strin
   const [fields, setFields] = useState<FieldErrors>({});
   const [pending, setPending] = useState(false);
   const errorRef = useRef<HTMLDivElement>(null);
+  // Bumped on every failed attempt, so focus returns to the message even when its text repeats.
+  const [failures, setFailures] = useState(0);
+
+  useEffect(() => {
+    if (failures > 0) errorRef.current?.focus();
+  }, [failures]);
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -37,7 +43,7 @@ export function SignInForm({ callbackPath, initialError }: { callbackPath: strin
     }
     setPending(false);
     setError(signInErrorMessage(result?.error ?? 'failed'));
-    requestAnimationFrame(() => errorRef.current?.focus());
+    setFailures((n) => n + 1);
   }
 
   return (

@@ -48,6 +48,15 @@ export class BandCollector {
     this.piece(xb, yb, zb, x1, y1, z1, move, tool);
   }
 
+  /** a flat XY arc at height z within the band (z ≤ band top) */
+  arc(x0: number, y0: number, x1: number, y1: number, z: number, cx: number, cy: number, r: number, a0: number, sweep: number, move: number, tool: number): void {
+    if (z <= this.throughZ) {
+      this.flush();
+      this.armed = true;
+    }
+    this.graph.addArc(x0, y0, x1, y1, z, cx, cy, r, a0, sweep, move, tool);
+  }
+
   private piece(x0: number, y0: number, z0: number, x1: number, y1: number, z1: number, move: number, tool: number): void {
     const zm = (z0 + z1) * 0.5;
     if (zm <= this.bandTopZ) {

@@ -2,11 +2,16 @@
 // the skin band of the bottom (and every tab rise between two through cuts) becomes an edge
 // between end points snapped to the chain tolerance; passes that retrace the same path land
 // on the same edge, which keeps the deepest cut and the first move that cut it through.
-// Closed loops are then read off this graph (faces.ts), whichever pass made them.
+// Closed loops are then read off this graph (faces.ts), whichever pass made them. A flat arc
+// stays an arc: it becomes sub-arcs of at most 45° (few edges, exact chords made only for the
+// loops found), and tabs, ramps and helices become straight chords.
+import { KeyTable } from './key-table';
 
 const KEY_OFFSET = 2 ** 24;
 const KEY_SPAN = 2 ** 25;
 const VERTEX_SPAN = 2 ** 26;
+const KEY_LIMIT = KEY_OFFSET - 1;
+const SUB_ARC_RAD = Math.PI / 4;
 
 export class CutGraph {
   readonly vx: number[] = [];
@@ -22,8 +27,15 @@ export class CutGraph {
   /** move index that first cut the edge through, −1 while never */
   readonly eFirstThrough: number[] = [];
   readonly eTool: number[] = [];
-  private readonly vertexByKey = new Map<number, number>();
-  private readonly edgeByKey = new Map<number, number>();
+  /** arc edges: centre, radius (0 for a straight edge), angle at end u, signed sweep from u to v */
+  readonly eCx: number[] = [];
+  readonly eCy: number[] = [];
+  readonly eR: number[] = [];
+  readonly eAu: number[] = [];
+  readonly eSweep: number[] = [];
+  private readonly vertexByKey = new KeyTable(1 << 14);
+  private edgeByKey = new KeyTable(1 << 14);
+  private arcByKey = new KeyTable(1 << 12);
   private readonly invQ: number;
 
   constructor(
@@ -48,9 +60,12 @@ export class CutGraph {
   private vertex(x: number, y: number): number {
     // consecutive pieces share an end point: skip the hash for it
     if (x === this.lastX && y === this.lastY) return this.lastId;
-    const key = (Math.round(x * this.invQ) + KEY_OFFSET) * KEY_SPAN + (Math.round(y * this.invQ) + KEY_OFFSET);
+    let qx = Math.round(x * this.invQ), qy = Math.round(y * this.invQ);
+    qx = qx > KEY_LIMIT ? KEY_LIMIT : qx < -KEY_LIMIT ? -KEY_LIMIT : qx;
+    qy = qy > KEY_LIMIT ? KEY_LIMIT : qy < -KEY_LIMIT ? -KEY_LIMIT : qy;
+    const key = (qx + KEY_OFFSET) * KEY_SPAN + (qy + KEY_OFFSET);
     let id = this.vertexByKey.get(key);
-    if (id === undefined) {
+    if (id < 0) {
       id = this.vx.length;
       this.vx.push(x);
       this.vy.push(y);
@@ -73,19 +88,65 @@ export class CutGraph {
     const zLo = z0 < z1 ? z0 : z1;
     const zHi = z0 < z1 ? z1 : z0;
     const through = (z0 + z1) * 0.5 <= this.throughZ;
-    let e = this.edgeByKey.get(key);
-    if (e === undefined) {
-      e = this.eu.length;
-      this.edgeByKey.set(key, e);
-      this.eu.push(u);
-      this.ev.push(v);
-      this.eZMin.push(zLo);
-      this.eZTop.push(zHi);
-      this.eFirstNear.push(move);
-      this.eFirstThrough.push(through ? move : -1);
-      this.eTool.push(tool);
+    const e = this.edgeByKey.get(key);
+    if (e < 0) {
+      this.edgeByKey.set(key, this.newEdge(u, v, zLo, zHi, move, through ? move : -1, tool));
       return;
     }
+    this.record(e, zLo, zHi, move, through, tool);
+  }
+
+  /**
+   * a flat XY arc at height z from (x0, y0) about (cx, cy), radius r, start angle a0, signed
+   * sweep, ending exactly at (x1, y1): added as sub-arcs of at most 45°
+   */
+  addArc(x0: number, y0: number, x1: number, y1: number, z: number, cx: number, cy: number, r: number, a0: number, sweep: number, move: number, tool: number): void {
+    const n = Math.max(1, Math.ceil(Math.abs(sweep) / SUB_ARC_RAD - 1e-9));
+    const through = z <= this.throughZ;
+    let a = this.vertex(x0, y0);
+    for (let k = 1; k <= n; k++) {
+      const b = k === n ? this.vertex(x1, y1) : this.vertex(cx + r * Math.cos(a0 + (sweep * k) / n), cy + r * Math.sin(a0 + (sweep * k) / n));
+      if (a !== b) {
+        const u = a < b ? a : b;
+        const v = a < b ? b : a;
+        const key = u * VERTEX_SPAN + v;
+        const e = this.arcByKey.get(key);
+        if (e < 0) {
+          const id = this.newEdge(u, v, z, z, move, through ? move : -1, tool);
+          this.arcByKey.set(key, id);
+          const startAngle = a0 + (sweep * (k - 1)) / n;
+          const step = sweep / n;
+          this.eCx[id] = cx;
+          this.eCy[id] = cy;
+          this.eR[id] = r;
+          this.eAu[id] = a === u ? startAngle : startAngle + step;
+          this.eSweep[id] = a === u ? step : -step;
+        } else {
+          this.record(e, z, z, move, through, tool);
+        }
+      }
+      a = b;
+    }
+  }
+
+  private newEdge(u: number, v: number, zLo: number, zHi: number, near: number, through: number, tool: number): number {
+    const id = this.eu.length;
+    this.eu.push(u);
+    this.ev.push(v);
+    this.eZMin.push(zLo);
+    this.eZTop.push(zHi);
+    this.eFirstNear.push(near);
+    this.eFirstThrough.push(through);
+    this.eTool.push(tool);
+    this.eCx.push(0);
+    this.eCy.push(0);
+    this.eR.push(0);
+    this.eAu.push(0);
+    this.eSweep.push(0);
+    return id;
+  }
+
+  private record(e: number, zLo: number, zHi: number, move: number, through: boolean, tool: number): void {
     if (zLo < this.eZMin[e]) {
       this.eZMin[e] = zLo;
       this.eZTop[e] = zHi;
@@ -138,12 +199,14 @@ export class CutGraph {
       let found = false;
       for (let i = 0; i < list.length && !found; i++) {
         const e1 = list[i];
+        if (this.eR[e1] > 0) continue; // arcs are never split: their chords are not the cut
         const p = this.eu[e1] === a ? this.ev[e1] : this.eu[e1];
         const px = this.vx[p] - ax, py = this.vy[p] - ay;
         const lp2 = px * px + py * py;
         for (let j = 0; j < list.length; j++) {
           if (j === i) continue;
           const e2 = list[j];
+          if (this.eR[e2] > 0) continue;
           const q = this.eu[e2] === a ? this.ev[e2] : this.eu[e2];
           const qx = this.vx[q] - ax, qy = this.vy[q] - ay;
           const lq2 = qx * qx + qy * qy;
@@ -175,19 +238,12 @@ export class CutGraph {
     const v = a < b ? b : a;
     const key = u * VERTEX_SPAN + v;
     const f = this.edgeByKey.get(key);
-    if (f !== undefined && f !== src && this.eu[f] >= 0) {
+    if (f >= 0 && f !== src && this.eu[f] >= 0) {
       this.mergeRecord(f, src);
       return;
     }
-    const id = this.eu.length;
+    const id = this.newEdge(u, v, this.eZMin[src], this.eZTop[src], this.eFirstNear[src], this.eFirstThrough[src], this.eTool[src]);
     this.edgeByKey.set(key, id);
-    this.eu.push(u);
-    this.ev.push(v);
-    this.eZMin.push(this.eZMin[src]);
-    this.eZTop.push(this.eZTop[src]);
-    this.eFirstNear.push(this.eFirstNear[src]);
-    this.eFirstThrough.push(this.eFirstThrough[src]);
-    this.eTool.push(this.eTool[src]);
     adjacency(u).push(id);
     adjacency(v).push(id);
   }
@@ -208,7 +264,7 @@ export class CutGraph {
 
   /** drops replaced edges and renumbers the rest */
   private compact(): void {
-    const arrays = [this.eu, this.ev, this.eZMin, this.eZTop, this.eFirstNear, this.eFirstThrough, this.eTool];
+    const arrays = [this.eu, this.ev, this.eZMin, this.eZTop, this.eFirstNear, this.eFirstThrough, this.eTool, this.eCx, this.eCy, this.eR, this.eAu, this.eSweep];
     let w = 0;
     const n = this.eu.length;
     for (let e = 0; e < n; e++) {
@@ -218,9 +274,11 @@ export class CutGraph {
     }
     for (const a of arrays) a.length = w;
     this.edgeByKey.clear();
+    this.arcByKey.clear();
   }
 
   edgeLengthMm(e: number): number {
+    if (this.eR[e] > 0) return this.eR[e] * Math.abs(this.eSweep[e]);
     const u = this.eu[e], v = this.ev[e];
     return Math.hypot(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
   }

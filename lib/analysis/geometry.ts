@@ -58,6 +58,28 @@ export function unionPaths(paths: Paths): Paths {
   return out;
 }
 
+/** true when every turn of the closed path goes the same way (collinear points allowed) */
+export function isConvex(path: Path): boolean {
+  const n = path.length;
+  if (n < 3) return false;
+  let sign = 0;
+  for (let i = 0; i < n; i++) {
+    const a = path[i], b = path[(i + 1) % n], c = path[(i + 2) % n];
+    const cross = (b.X - a.X) * (c.Y - b.Y) - (b.Y - a.Y) * (c.X - b.X);
+    if (cross === 0) continue;
+    const s = cross > 0 ? 1 : -1;
+    if (sign === 0) sign = s;
+    else if (s !== sign) return false;
+  }
+  return sign !== 0;
+}
+
+/** every point of `inner` strictly inside `outer` */
+export function pathInside(inner: Path, outer: Path): boolean {
+  for (const p of inner) if (ClipperLib.Clipper.PointInPolygon(p, outer) !== 1) return false;
+  return true;
+}
+
 const probe: IntPoint = { X: 0, Y: 0 };
 /** 1 inside, 0 outside, −1 on the boundary (to the micrometre) */
 export function pointInPath(xMm: number, yMm: number, path: Path): number {

@@ -61,7 +61,7 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
   let looseSlugs = 0;
   if (scan.graph && sheet && bottomZ !== null && topZ !== null) {
     scan.graph.zipOverlaps();
-    const loops = extractLoops(scan.graph).map((l) => describeLoop(scan.graph!, l, bottomZ, bottomZ + tol, moves.line));
+    const loops = extractLoops(scan.graph).map((l) => describeLoop(scan.graph!, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm));
     const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
     const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
     holes = built.holes;

@@ -19,14 +19,34 @@ export interface LoopInfo {
   skinMm: number;
 }
 
-export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, throughZ: number, line: Uint32Array): LoopInfo {
+/** the loop's points, arc edges drawn as chords within toleranceMm (n = ⌈θ / 2acos(1 − e/r)⌉) */
+function loopPoints(g: CutGraph, loop: GraphLoop, toleranceMm: number): { xs: Float64Array; ys: Float64Array } {
+  const px: number[] = [];
+  const py: number[] = [];
   const n = loop.verts.length;
-  const xs = new Float64Array(n);
-  const ys = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    xs[i] = g.vx[loop.verts[i]];
-    ys[i] = g.vy[loop.verts[i]];
+    const from = loop.verts[i];
+    px.push(g.vx[from]);
+    py.push(g.vy[from]);
+    const e = loop.edges[i];
+    const r = g.eR[e];
+    if (r <= 0) continue;
+    const forward = g.eu[e] === from;
+    const sweep = forward ? g.eSweep[e] : -g.eSweep[e];
+    const a0 = forward ? g.eAu[e] : g.eAu[e] + g.eSweep[e];
+    const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
+    const m = Math.max(1, Math.ceil(Math.abs(sweep) / step));
+    for (let k = 1; k < m; k++) {
+      px.push(g.eCx[e] + r * Math.cos(a0 + (sweep * k) / m));
+      py.push(g.eCy[e] + r * Math.sin(a0 + (sweep * k) / m));
+    }
   }
+  return { xs: Float64Array.from(px), ys: Float64Array.from(py) };
+}
+
+export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, throughZ: number, line: Uint32Array, arcToleranceMm: number): LoopInfo {
+  const n = loop.verts.length;
+  const { xs, ys } = loopPoints(g, loop, arcToleranceMm);
   let completed = -1, first = Infinity, freed = -1, allThrough = true, anyThrough = false, freeTool = -1;
   let skin = Infinity;
   for (let i = 0; i < n; i++) {

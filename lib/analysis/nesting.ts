@@ -38,13 +38,25 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
     return { info, path, areaMm2: area, perimeterMm: pathPerimeterMm(path), bbox: { minX, minY, maxX, maxY }, radiusMm: radiusOf(info.tool), depth: 0, parent: -1, children: [] };
   });
   all.sort((a, b) => b.areaMm2 - a.areaMm2);
+  // a uniform grid of the kept loops' boxes: a loop's container must cover the cell of its first point
+  let gx0 = Infinity, gy0 = Infinity, gx1 = -Infinity, gy1 = -Infinity;
+  for (const n of all) {
+    gx0 = Math.min(gx0, n.bbox.minX); gy0 = Math.min(gy0, n.bbox.minY);
+    gx1 = Math.max(gx1, n.bbox.maxX); gy1 = Math.max(gy1, n.bbox.maxY);
+  }
+  const side = Math.max(1, Math.min(256, Math.ceil(Math.sqrt(all.length))));
+  const cw = Math.max((gx1 - gx0) / side, 1e-9), ch = Math.max((gy1 - gy0) / side, 1e-9);
+  const col = (x: number) => Math.min(side - 1, Math.max(0, Math.floor((x - gx0) / cw)));
+  const row = (y: number) => Math.min(side - 1, Math.max(0, Math.floor((y - gy0) / ch)));
+  const cells: number[][] = Array.from({ length: side * side }, () => []);
   const kept: LoopNode[] = [];
   for (let i = 0; i < all.length; i++) {
     const node = all[i];
     let parent = -1;
-    for (let j = kept.length - 1; j >= 0; j--) {
-      if (contains(kept[j], node, toleranceMm)) {
-        parent = j;
+    const list = cells[row(node.info.ys[0]) * side + col(node.info.xs[0])];
+    for (let j = list.length - 1; j >= 0; j--) {
+      if (contains(kept[list[j]], node, toleranceMm)) {
+        parent = list[j];
         break;
       }
     }
@@ -61,7 +73,10 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
       node.depth = p.depth + 1;
       p.children.push(kept.length);
     }
+    const id = kept.length;
     kept.push(node);
+    for (let r = row(node.bbox.minY); r <= row(node.bbox.maxY); r++)
+      for (let c = col(node.bbox.minX); c <= col(node.bbox.maxX); c++) cells[r * side + c].push(id);
   }
   return kept;
 }

@@ -3,7 +3,7 @@
 // radius (Clipper offsets with round joins, then a difference). A hole's slug is the hole's
 // interior shrunk by the radius, minus any part nested inside it. Each gets its hold verdict.
 import { FindingSink, fmt } from './findings';
-import { differencePaths, offsetPaths, pathPerimeterMm, pathsAreaMm2, pathsBBox, unionPaths, type Paths } from './geometry';
+import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, type Paths } from './geometry';
 import { freedPieceHold } from './hold';
 import type { LoopNode } from './nesting';
 import type { AnalysisSettings } from './settings';
@@ -39,10 +39,9 @@ export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSin
     const holeNodes = node.children.map((c) => nodes[c]);
     const grown: Paths = [];
     for (const h of holeNodes) grown.push(...offsetPaths([h.path], h.radiusMm));
-    const region = grown.length > 0 ? differencePaths(outline, unionPaths(grown)) : outline;
-    const area = pathsAreaMm2(region);
+    const area = materialArea(outline, grown);
     if (area < MIN_PART_AREA_MM2) continue;
-    const bbox = pathsBBox(region)!;
+    const bbox = pathsBBox(outline)!;
     let perimeter = 0;
     const outlineAreas = outline.map((p) => pathsAreaMm2([p]));
     outline.forEach((p, i) => { if (outlineAreas[i] > 0) perimeter += pathPerimeterMm(p); });
@@ -69,7 +68,8 @@ export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSin
     const b: BuiltPart = { part, node, outline, outlineAreas, freedMove: info.freedMove, sortMove: info.freedMove >= 0 ? info.freedMove : info.completedMove };
     built.push(b);
     for (const h of holeNodes) {
-      const slug = slugOf(h, nodes);
+      // tape and glue hold any slug: its size does not matter
+      const slug = ctx.method === 'tape-glue' ? 0 : slugOf(h, nodes);
       part.holes++;
       holeCount++;
       const hi = h.info;
@@ -98,11 +98,34 @@ export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSin
   return { parts: built, holes: holeCount, looseSlugs: looseSlugs + (sink.suppressed['loose-slug'] ?? 0) };
 }
 
+/**
+ * area of the outline minus the grown holes. When the outline is one convex path and the holes
+ * lie inside it without touching each other, that is a plain subtraction of areas; otherwise
+ * Clipper's difference decides.
+ */
+function materialArea(outline: Paths, grown: Paths): number {
+  if (grown.length === 0) return pathsAreaMm2(outline);
+  if (outline.length === 1 && isConvex(outline[0]) && grown.every((g) => pathInside(g, outline[0])) && disjointBoxes(grown)) {
+    return pathsAreaMm2(outline) - pathsAreaMm2(grown);
+  }
+  return pathsAreaMm2(differencePaths(outline, grown));
+}
+
+function disjointBoxes(paths: Paths): boolean {
+  if (paths.length < 2) return true;
+  const boxes = paths.map((p) => pathsBBox([p])!);
+  for (let i = 0; i < boxes.length; i++)
+    for (let j = i + 1; j < boxes.length; j++) {
+      const a = boxes[i], b = boxes[j];
+      if (a.minX <= b.maxX && b.minX <= a.maxX && a.minY <= b.maxY && b.minY <= a.maxY) return false;
+    }
+  return true;
+}
+
 function slugOf(hole: LoopNode, nodes: LoopNode[]): number {
   const inner = offsetPaths([hole.path], -hole.radiusMm);
   if (inner.length === 0) return 0;
   const grown: Paths = [];
   for (const c of hole.children) grown.push(...offsetPaths([nodes[c].path], nodes[c].radiusMm));
-  const region = grown.length > 0 ? differencePaths(inner, unionPaths(grown)) : inner;
-  return pathsAreaMm2(region);
+  return pathsAreaMm2(grown.length > 0 ? differencePaths(inner, grown) : inner);
 }

@@ -25,6 +25,24 @@ export interface ScanResult {
   toolFirstLine: Map<number, number>;
 }
 
+/** XY extent of an arc: its end points and the axis crossings its sweep passes */
+function arcExtent(cx: number, cy: number, r: number, a0: number, sweep: number, out: Float64Array): void {
+  const a1 = a0 + sweep;
+  let minX = Math.min(cx + r * Math.cos(a0), cx + r * Math.cos(a1));
+  let maxX = Math.max(cx + r * Math.cos(a0), cx + r * Math.cos(a1));
+  let minY = Math.min(cy + r * Math.sin(a0), cy + r * Math.sin(a1));
+  let maxY = Math.max(cy + r * Math.sin(a0), cy + r * Math.sin(a1));
+  const lo = Math.min(a0, a1), hi = Math.max(a0, a1);
+  for (let k = Math.ceil(lo / (Math.PI / 2)); k * (Math.PI / 2) <= hi; k++) {
+    const q = ((k % 4) + 4) % 4;
+    if (q === 0) maxX = cx + r;
+    else if (q === 1) maxY = cy + r;
+    else if (q === 2) minX = cx - r;
+    else minY = cy - r;
+  }
+  out[0] = minX; out[1] = minY; out[2] = maxX; out[3] = maxY;
+}
+
 export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramChecks): ScanResult {
   const { x, y, z, kind, flags, tool, feed, line, arcs } = moves;
   const n = moves.count;
@@ -34,6 +52,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
     : null;
   const bandTop = levels.bandTopZ ?? -Infinity;
   const chords = new ArcChords();
+  const ext = new Float64Array(4);
   const toolFirstLine = new Map<number, number>();
   const firstThroughByTool = new Map<number, number>();
   let lastTool = -1;
@@ -66,7 +85,18 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
         if (band) band.segment(px, py, pz, x1, y1, z1, i, t);
       } else {
         while (arcCursor < arcs.count && arcs.move[arcCursor] < i) arcCursor++;
-        if (arcCursor < arcs.count && arcs.move[arcCursor] === i) {
+        const isArc = arcCursor < arcs.count && arcs.move[arcCursor] === i;
+        if (isArc && band && arcs.plane[arcCursor] === 0 && pz === z1 && z1 <= bandTop) {
+          // a flat arc near the bottom stays an arc in the graph
+          const cx = arcs.cx[arcCursor], cy = arcs.cy[arcCursor], r = arcs.radius[arcCursor], sw = arcs.sweep[arcCursor];
+          const a0 = Math.atan2(py - cy, px - cx);
+          band.arc(px, py, x1, y1, z1, cx, cy, r, a0, sw, i, t);
+          arcExtent(cx, cy, r, a0, sw, ext);
+          if (ext[0] < bx0) bx0 = ext[0];
+          if (ext[1] < by0) by0 = ext[1];
+          if (ext[2] > bx1) bx1 = ext[2];
+          if (ext[3] > by1) by1 = ext[3];
+        } else if (isArc) {
           // exact chords near the bottom; coarser ones suffice for the extent checks
           const near = zLo <= bandTop;
           chords.flatten(arcs, arcCursor, px, py, pz, x1, y1, z1, near ? levels.arcToleranceMm : levels.arcToleranceMm * 10);

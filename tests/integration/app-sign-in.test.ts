@@ -126,6 +126,13 @@ describe('pages', () => {
     expect(response.headers.get('location')).toMatch(/\/sign-in/);
   });
 
+  it('the root address sends a signed-in user to the jobs page', async () => {
+    const lena = await signInOverHttp('lena@alder-finch.example', DEMO_PASSWORD);
+    const response = await fetch(`${server.baseUrl}/`, { headers: { cookie: lena.jar.header() }, redirect: 'manual' });
+    expect([302, 303, 307, 308]).toContain(response.status);
+    expect(new URL(response.headers.get('location') ?? '', server.baseUrl).pathname).toBe('/jobs');
+  });
+
   it('an operator opening the users page gets status 403 and the 403 page', async () => {
     const lena = await signInOverHttp('lena@alder-finch.example', DEMO_PASSWORD);
     const response = await fetch(`${server.baseUrl}/admin/users`, { headers: { cookie: lena.jar.header() }, redirect: 'manual' });
