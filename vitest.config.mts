@@ -3,8 +3,9 @@
 // playwright-core against the built app). `npm test` runs all three.
 import { defineConfig } from 'vitest/config';
 import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 
-const alias = { '@': path.resolve(__dirname) };
+const alias = { '@': path.dirname(fileURLToPath(import.meta.url)) };
 
 export default defineConfig({
   resolve: { alias },
