@@ -1,4 +1,5 @@
 // Human-readable output of `npm run estimate`: a short plain-text table.
+import type { AnalysisPart } from '@/lib/analysis';
 import type { EstimateReport } from '@/lib/kinematics';
 
 export function clock(seconds: number): string {
@@ -36,6 +37,15 @@ export function formatEstimateTable(r: EstimateReport, machineName: string, time
   if (r.cuttingFeed.commanded > 0) {
     rows.push(['cutting feed', `commanded ${Math.round(r.cuttingFeed.commanded)} mm/min, achieved ${Math.round(r.cuttingFeed.achieved)} mm/min (${(100 * r.cuttingFeed.lostShare).toFixed(1)} % of cutting time lost to acceleration and limits)`]);
   }
+  const parts = r.parts as AnalysisPart[];
+  const unheld = parts.filter((p) => !p.held).length;
+  rows.push(['parts', parts.length === 0 ? 'no through-cut parts found' : `${parts.length} through-cut (${unheld} not held)`]);
+  for (const p of [...parts].sort((a, b) => a.order - b.order).slice(0, 10)) {
+    const held = p.held ? `held by ${p.holdBy}` : 'NOT HELD';
+    const freed = p.freedAtLine === null ? 'stays attached' : `freed at line ${p.freedAtLine}`;
+    rows.push([`  #${p.order} part ${p.id}`, `${Math.round(p.areaMm2)} mm², ${p.holes} holes, ${p.tabs} tabs, ${held}, ${freed}`]);
+  }
+  if (parts.length > 10) rows.push(['', `… ${parts.length - 10} more (use --json)`]);
   const errors = r.findings.filter((f) => f.severity === 'error').length;
   const warnings = r.findings.filter((f) => f.severity === 'warning').length;
   rows.push(['findings', `${r.findings.length} (${errors} errors, ${warnings} warnings)`]);

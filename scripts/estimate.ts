@@ -5,8 +5,7 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { interpret } from '@/lib/gcode';
-import { buildEstimateReport, estimate, stockTopZ } from '@/lib/kinematics';
+import { runEstimate } from '@/lib/estimate/run-estimate';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
 import { parseEstimateArgs } from './estimate-args';
 import { formatEstimateTable } from './estimate-table';
@@ -42,14 +41,7 @@ function main(): void {
 
   const bytes = readOrFail(args.file, 'program');
   const sha256 = createHash('sha256').update(bytes).digest('hex');
-  const result = interpret(bytes.toString('utf8'), { home: profile.profile.home });
-  const est = estimate(result.moves, profile.profile, { stockTopZ: stockTopZ(args.zero, args.sheet?.thicknessMm) });
-  const report = buildEstimateReport({
-    file: { name: path.basename(args.file), sha256, lines: result.facts.lineCount, units: result.facts.units },
-    estimate: est,
-    diagnostics: result.diagnostics,
-    // through-cut analysis (sheet, hold-down) joins here: extraFindings and parts
-  });
+  const { report } = runEstimate(bytes.toString('utf8'), profile.profile, args, { name: path.basename(args.file), sha256 });
   process.stdout.write(args.json ? `${JSON.stringify(report)}\n` : `${formatEstimateTable(report, profile.profile.name, profile.profile.timeFactor)}\n`);
 }
 

@@ -27,8 +27,19 @@ echo "[kerfcast] production build (next build)"
 npx next build
 echo "[kerfcast] tests (vitest run: unit, integration, e2e)"
 set +e
-npx vitest run "$@"
+mkdir -p .data
+rm -f .data/vitest-report.json
+npx vitest run --reporter=default --reporter=json --outputFile.json=.data/vitest-report.json "$@"
 code=$?
+# One plain closing line with the counts, whatever the reporter printed above.
+node -e '
+  const fs = require("node:fs");
+  const f = ".data/vitest-report.json";
+  if (!fs.existsSync(f)) { console.log("tests: no report written"); process.exit(0); }
+  const r = JSON.parse(fs.readFileSync(f, "utf8"));
+  const skipped = (r.numPendingTests || 0) + (r.numTodoTests || 0);
+  console.log(`tests: ${r.numPassedTests} passed, ${r.numFailedTests} failed, ${skipped} skipped`);
+'
 set -e
 echo "[kerfcast] npm test finished in $(( $(date +%s) - start )) s with exit code $code"
 exit "$code"

@@ -26,7 +26,6 @@ export class BandCollector {
   segment(x0: number, y0: number, z0: number, x1: number, y1: number, z1: number, move: number, tool: number): void {
     const zLo = z0 < z1 ? z0 : z1;
     if (!this.armed && zLo > this.bandTopZ) return;
-    const zHi = z0 < z1 ? z1 : z0;
     const tT = crossing(z0, z1, this.throughZ);
     const tB = crossing(z0, z1, this.bandTopZ);
     if (tT < 0 && tB < 0) {

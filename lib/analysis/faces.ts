@@ -11,10 +11,14 @@ export interface GraphLoop {
   edges: Int32Array;
 }
 
-export function extractLoops(g: CutGraph): GraphLoop[] {
+/** edges left once dangling ends are pruned: 1 = part of a cycle or a path between cycles */
+export function liveEdges(g: CutGraph): Uint8Array {
+  return prune(g).alive;
+}
+
+function prune(g: CutGraph) {
   const V = g.vertexCount;
   const E = g.edgeCount;
-  if (E === 0) return [];
   const eu = g.eu, ev = g.ev;
   const deg = new Int32Array(V);
   for (let e = 0; e < E; e++) {
@@ -47,6 +51,15 @@ export function extractLoops(g: CutGraph): GraphLoop[] {
       break;
     }
   }
+  return { alive, deg, start, adj };
+}
+
+export function extractLoops(g: CutGraph): GraphLoop[] {
+  const V = g.vertexCount;
+  const E = g.edgeCount;
+  if (E === 0) return [];
+  const eu = g.eu, ev = g.ev;
+  const { alive, deg, start, adj } = prune(g);
   // sort live edges around each vertex by angle, remember each edge end's position
   const order = new Int32Array(2 * E);
   const count = new Int32Array(V);

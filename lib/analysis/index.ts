@@ -6,8 +6,9 @@
 // program checks (program-checks). The result is an aid for the programmer and the operator,
 // not a guarantee.
 import type { MoveList } from '@/lib/gcode/move-list';
+import { findCrossings } from './crossings';
 import { checkCutOrder } from './cut-order';
-import { extractLoops } from './faces';
+import { extractLoops, liveEdges } from './faces';
 import { FindingSink, fmt } from './findings';
 import { describeLoop } from './loops';
 import { nestLoops } from './nesting';
@@ -60,8 +61,17 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
   let holes = 0;
   let looseSlugs = 0;
   if (scan.graph && sheet && bottomZ !== null && topZ !== null) {
-    scan.graph.zipOverlaps();
-    const loops = extractLoops(scan.graph).map((l) => describeLoop(scan.graph!, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm));
+    const g = scan.graph;
+    g.zipOverlaps();
+    const { crossed, crossings } = findCrossings(g, s.chainToleranceMm, liveEdges(g));
+    for (const c of crossings) {
+      const la = moves.line[g.eFirstNear[c.edgeA]], lb = moves.line[g.eFirstNear[c.edgeB]];
+      sink.add('crossing-cuts', 'warning', Math.max(la, lb),
+        `Through cuts cross at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)} (lines ${Math.min(la, lb)} and ${Math.max(la, lb)}): two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
+    }
+    const loops = extractLoops(g)
+      .filter((l) => !l.edges.some((e) => crossed[e] === 1))
+      .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm));
     const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
     const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
     holes = built.holes;

@@ -18,6 +18,7 @@ export type FindingKind =
   | 'feed-clamped'
   | 'straight-plunge'
   | 'unknown-tool'
+  | 'crossing-cuts'
   | 'checks-skipped';
 
 export interface SheetSpec {

@@ -11,6 +11,8 @@ export interface ReportFinding {
   severity: Severity;
   line: number;
   message: string;
+  /** the part a through-cut finding concerns */
+  part?: number;
 }
 
 export interface ReportInput {
@@ -22,6 +24,8 @@ export interface ReportInput {
   extraFindings?: readonly ReportFinding[];
   /** parts found by the through-cut analysis, passed through as they are */
   parts?: readonly unknown[];
+  /** the through-cut analysis summary and plunge points, passed through as they are */
+  checks?: unknown;
 }
 
 export interface EstimateReport {
@@ -37,6 +41,7 @@ export interface EstimateReport {
   cuttingFeed: { commanded: number; achieved: number; lostShare: number };
   findings: ReportFinding[];
   parts: unknown[];
+  checks?: unknown;
 }
 
 /** Rounds for output only: µs for times, nm for distances, keeps the JSON stable and short. */
@@ -73,5 +78,6 @@ export function buildEstimateReport(input: ReportInput): EstimateReport {
     },
     findings,
     parts: input.parts ? [...input.parts] : [],
+    ...(input.checks === undefined ? {} : { checks: input.checks }),
   };
 }

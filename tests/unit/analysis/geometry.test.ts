@@ -62,6 +62,34 @@ describe('part areas: closed forms', () => {
   });
 });
 
+describe('arcs: helical entries and flat laps', () => {
+  it('a circle entered by two helical turns and finished by a flat lap is one loop of area πr²', () => {
+    const w = new ProgramWriter();
+    w.tool = 9;
+    w.rapid(140, 100, 5).feed(140, 100, 0, 600);
+    w.arc(140, 100, -9, 100, 100, true).arc(140, 100, -18.3, 100, 100, true).arc(140, 100, -18.3, 100, 100, true);
+    w.retract();
+    const r = analyze(w.build(), job(18));
+    expect(r.parts).toHaveLength(1);
+    const exact = Math.PI * 40 * 40;
+    expect(exact - r.parts[0].areaMm2).toBeGreaterThanOrEqual(-1e-6);
+    expect(exact - r.parts[0].areaMm2).toBeLessThan(chordBound(40, 0));
+    expect(r.parts[0].freedAtLine).toBe(5); // the flat lap closes it
+  });
+
+  it('a helical lap below the bottom followed by a flat lap is still one loop, not a crossing', () => {
+    const w = new ProgramWriter();
+    w.tool = 9;
+    w.rapid(140, 100, 5).feed(140, 100, -18.1, 600);
+    w.arc(140, 100, -18.3, 100, 100, false).arc(140, 100, -18.3, 100, 100, false);
+    w.retract();
+    const r = analyze(w.build(), job(18));
+    expect(r.findings.filter((f) => f.kind === 'crossing-cuts')).toEqual([]);
+    expect(r.parts).toHaveLength(1);
+    expect(Math.PI * 1600 - r.parts[0].areaMm2).toBeLessThan(chordBound(40, 0));
+  });
+});
+
 describe('containment and nesting', () => {
   it('a loop inside a part is its hole; a loop inside that hole is a part again', () => {
     const w = new ProgramWriter();

@@ -141,3 +141,35 @@ describe('program checks', () => {
     expect(r.summary.suppressed['rapid-in-stock']).toBe(15);
   });
 });
+
+describe('crossing through cuts', () => {
+  it('two overlapping profiles are reported and left out of the part list; a part clear of them is kept', () => {
+    const w = new ProgramWriter();
+    w.rect(0, 0, 100, 60, [-18.3]);
+    w.rect(50, 30, 150, 90, [-18.3]); // crosses the first one twice
+    w.rect(300, 0, 400, 60, [-18.3]);
+    const r = analyze(w.build(), job(18));
+    const f = r.findings.filter((x) => x.kind === 'crossing-cuts');
+    expect(f).toHaveLength(2);
+    expect(f[0].message).toMatch(/X 100\.00, Y 30\.00|X 50\.00, Y 60\.00/);
+    expect(r.parts).toHaveLength(1);
+    expect(r.parts[0].bbox.minX).toBeCloseTo(303.175, 6);
+  });
+});
+
+describe('cut order with a pocket', () => {
+  it('a pocket inside a part after its profile went through is a cut-order error; before it, none', () => {
+    const pocket = (w: ProgramWriter) => w.rapid(40, 25, 5).feed(40, 25, -5, 600).feed(60, 25, -5).feed(60, 35, -5).retract();
+    const late = new ProgramWriter();
+    late.rect(0, 0, 100, 60, [-18.3]);
+    pocket(late);
+    const r = analyze(late.build(), job(18));
+    const f = r.findings.filter((x) => x.kind === 'cut-order');
+    expect(f).toHaveLength(1);
+    expect(f[0].message).toContain(`line ${r.parts[0].freedAtLine}`);
+    const early = new ProgramWriter();
+    pocket(early);
+    early.rect(0, 0, 100, 60, [-18.3]);
+    expect(analyze(early.build(), job(18)).findings.filter((x) => x.kind === 'cut-order')).toHaveLength(0);
+  });
+});
