@@ -3,27 +3,15 @@
 // lines per second, the ratio b/a (target ≤ 1.3), peak memory and bytes per move (target
 // ≤ 100). Also (c): the interpretation with parseLine on every line (tokenizer 'parser'),
 // to show what the fast scanner buys. Figures only; nothing here fails on a number.
-import { parseLine } from 'gcode-parser';
 import v8 from 'node:v8';
 import vm from 'node:vm';
 import { generateProgram } from '../../fixtures/program-generator';
 import { interpret, moveListBytes } from '../../lib/gcode';
+import { bareParse, median } from './support';
 
 const LINES = Number(process.env.GCODE_BENCH_LINES ?? '') || 1_000_000;
 const ROUNDS = 3;
 
-function bareParse(text: string): number {
-  let words = 0;
-  let pos = 0;
-  const len = text.length;
-  while (pos < len) {
-    let end = text.indexOf('\n', pos);
-    if (end === -1) end = len;
-    words += parseLine(text.slice(pos, end)).words.length;
-    pos = end + 1;
-  }
-  return words;
-}
 
 // a real gc() between rounds makes the memory baseline mean something without a node flag
 v8.setFlagsFromString('--expose_gc');
@@ -33,10 +21,6 @@ function mb(bytes: number): string {
   return (bytes / 1048576).toFixed(1) + ' MB';
 }
 
-function median(a: number[]): number {
-  const s = [...a].sort((x, y) => x - y);
-  return s[Math.floor(s.length / 2)];
-}
 
 export default async function gcodeBench(): Promise<void> {
   const t0 = performance.now();

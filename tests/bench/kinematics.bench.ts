@@ -5,28 +5,15 @@
 // Figures only; nothing here fails on a number.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { parseLine } from 'gcode-parser';
 import { interpret } from '../../lib/gcode';
 import { estimate } from '../../lib/kinematics';
 import { parseMachineProfile } from '../../lib/validation/machine-profile';
+import { bareParse, median } from './support';
 
 const LINES = Number(process.env.KINEMATICS_BENCH_LINES ?? '') || 1_000_000;
 const ROUNDS = 3;
 
-function bareParse(text: string): number {
-  let words = 0;
-  let pos = 0;
-  const len = text.length;
-  while (pos < len) {
-    let end = text.indexOf('\n', pos);
-    if (end === -1) end = len;
-    words += parseLine(text.slice(pos, end)).words.length;
-    pos = end + 1;
-  }
-  return words;
-}
 
-const median = (a: number[]) => [...a].sort((x, y) => x - y)[Math.floor(a.length / 2)];
 
 export default async function kinematicsBench(): Promise<void> {
   let generateProgram: ((lines: number, seed?: number) => string) | undefined;
