@@ -49,7 +49,9 @@ export function formatEstimateTable(r: EstimateReport, machineName: string, time
   const errors = r.findings.filter((f) => f.severity === 'error').length;
   const warnings = r.findings.filter((f) => f.severity === 'warning').length;
   rows.push(['findings', `${r.findings.length} (${errors} errors, ${warnings} warnings)`]);
-  for (const f of r.findings.slice(0, 10)) rows.push([`  line ${f.line}`, `${f.severity}: ${f.message}`]);
+  const rank = { error: 0, warning: 1, info: 2 } as const;
+  const worstFirst = [...r.findings].sort((a, b) => rank[a.severity] - rank[b.severity] || a.line - b.line);
+  for (const f of worstFirst.slice(0, 10)) rows.push([`  line ${f.line}`, `${f.severity}: ${f.message}`]);
   if (r.findings.length > 10) rows.push(['', `… ${r.findings.length - 10} more (use --json)`]);
   const w = Math.max(...rows.map(([k]) => k.length)) + 2;
   const lines = rows.map(([k, v]) => `${k.padEnd(w)}${v}`);

@@ -53,6 +53,9 @@ export function buildEstimateReport(input: ReportInput): EstimateReport {
   const b = e.breakdown;
   const findings: ReportFinding[] = input.diagnostics.map((d) => ({ kind: d.code, severity: d.severity, line: d.line, message: d.message }));
   if (input.extraFindings) findings.push(...input.extraFindings);
+  // one list in program order, the way a programmer reads it against the file (stable sort:
+  // findings of one line keep the order their checks gave them); whole-program ones (line 0) first
+  findings.sort((a, b) => a.line - b.line);
   return {
     engine: ENGINE_VERSION,
     file: { ...input.file },
