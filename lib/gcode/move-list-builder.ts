@@ -13,7 +13,7 @@
 // push() writes any record kind; pushArc() writes an arc move plus its arc-table row (centre
 // cx cy cz, radius, signed sweep in radians, plane 0 = G17, 1 = G18, 2 = G19). Positions are
 // mm in the G54 frame; the start of each move is the end of the previous one.
-import { MoveKind, type MoveKindCode, type MoveList, type Xyz } from './move-list';
+import { MoveKind, type ArcTable, type MoveKindCode, type MoveList, type Xyz } from './move-list';
 
 type Field = 'x' | 'y' | 'z' | 'kind' | 'flags' | 'tool' | 'feed' | 'spindle' | 'aux' | 'line';
 type ArcField = 'move' | 'cx' | 'cy' | 'cz' | 'radius' | 'sweep' | 'plane';
@@ -24,28 +24,10 @@ const ARC_CHUNK = 1 << 14;
 const MOVE_BYTES = 8 * 3 + 1 + 1 + 2 + 4 * 3 + 4;
 const ARC_BYTES = 4 + 8 * 5 + 1;
 
-interface MoveChunk {
-  x: Float64Array;
-  y: Float64Array;
-  z: Float64Array;
-  kind: Uint8Array;
-  flags: Uint8Array;
-  tool: Uint16Array;
-  feed: Float32Array;
-  spindle: Float32Array;
-  aux: Float32Array;
-  line: Uint32Array;
-}
+/** one chunk holds the per-move columns of the move list for CHUNK moves */
+type MoveChunk = Pick<MoveList, 'x' | 'y' | 'z' | 'kind' | 'flags' | 'tool' | 'feed' | 'spindle' | 'aux' | 'line'>;
 
-interface ArcChunk {
-  move: Uint32Array;
-  cx: Float64Array;
-  cy: Float64Array;
-  cz: Float64Array;
-  radius: Float64Array;
-  sweep: Float64Array;
-  plane: Uint8Array;
-}
+type ArcChunk = Omit<ArcTable, 'count'>;
 
 function moveChunk(n: number): MoveChunk {
   return {
