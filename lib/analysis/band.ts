@@ -17,6 +17,11 @@ export class BandCollector {
     private readonly tabMaxLengthMm: number,
   ) {}
 
+  /** a through cut was made and the tool has not left the stock since: rises may be tabs */
+  get isArmed(): boolean {
+    return this.armed;
+  }
+
   breakRun(): void {
     this.armed = false;
     if (this.pending.length > 0) this.pending.length = 0;

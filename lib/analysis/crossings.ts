@@ -41,7 +41,8 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
     minY = Math.min(minY, ay, by); maxY = Math.max(maxY, ay, by);
     total += Math.hypot(bx - ax, by - ay);
   }
-  const cell = Math.max(toleranceMm * 10, (total / E) / 2, Math.max(maxX - minX, maxY - minY) / 4096);
+  // about four cells per edge at most: a sparse nest over a wide area must not walk millions of empty cells
+  const cell = Math.max(toleranceMm * 10, (total / E) / 2, Math.max(maxX - minX, maxY - minY) / 4096, Math.sqrt(((maxX - minX) * (maxY - minY)) / (4 * E)));
   const nx = Math.floor((maxX - minX) / cell) + 1;
   const ny = Math.floor((maxY - minY) / cell) + 1;
   // two passes over the traversal: count, then fill (CSR)

@@ -14,43 +14,65 @@ const KEY_LIMIT = KEY_OFFSET - 1;
 const SUB_ARC_RAD = Math.PI / 4;
 
 export class CutGraph {
-  readonly vx: number[] = [];
-  readonly vy: number[] = [];
-  readonly eu: number[] = [];
-  readonly ev: number[] = [];
+  // typed arrays with spare room (grown by doubling): read them below edgeCount / vertexCount
+  vx = new Float64Array(256);
+  vy = new Float64Array(256);
+  eu = new Int32Array(256);
+  ev = new Int32Array(256);
   /** lowest Z any pass cut this edge at */
-  readonly eZMin: number[] = [];
+  eZMin = new Float64Array(256);
   /** highest Z of the pass that cut it lowest (the top of a tab) */
-  readonly eZTop: number[] = [];
+  eZTop = new Float64Array(256);
   /** move index that first cut the edge within the band */
-  readonly eFirstNear: number[] = [];
+  eFirstNear = new Int32Array(256);
   /** move index that first cut the edge through, −1 while never */
-  readonly eFirstThrough: number[] = [];
-  readonly eTool: number[] = [];
+  eFirstThrough = new Int32Array(256);
+  eTool = new Int32Array(256);
   /** arc edges: centre, radius (0 for a straight edge), angle at end u, signed sweep from u to v */
-  readonly eCx: number[] = [];
-  readonly eCy: number[] = [];
-  readonly eR: number[] = [];
-  readonly eAu: number[] = [];
-  readonly eSweep: number[] = [];
-  private readonly vertexByKey = new KeyTable(1 << 14);
-  private edgeByKey = new KeyTable(1 << 14);
+  eCx = new Float64Array(256);
+  eCy = new Float64Array(256);
+  eR = new Float64Array(256);
+  eAu = new Float64Array(256);
+  eSweep = new Float64Array(256);
+  private eCount = 0;
+  private vCount = 0;
+  private readonly vertexByKey: KeyTable;
+  private edgeByKey: KeyTable;
   private arcByKey = new KeyTable(1 << 12);
   private readonly invQ: number;
 
+  /** capacityHint: about how many points to expect, so the tables rarely need to grow */
   constructor(
     chainToleranceMm: number,
     private readonly throughZ: number,
+    capacityHint = 1 << 14,
   ) {
     this.invQ = 1 / chainToleranceMm;
+    this.vertexByKey = new KeyTable(capacityHint);
+    this.edgeByKey = new KeyTable(capacityHint);
   }
 
   get edgeCount(): number {
-    return this.eu.length;
+    return this.eCount;
   }
 
   get vertexCount(): number {
-    return this.vx.length;
+    return this.vCount;
+  }
+
+  private growVertices(): void {
+    const n = this.vx.length * 2;
+    this.vx = grownF64(this.vx, n);
+    this.vy = grownF64(this.vy, n);
+  }
+
+  private growEdges(): void {
+    const n = this.eu.length * 2;
+    this.eu = grownI32(this.eu, n); this.ev = grownI32(this.ev, n);
+    this.eZMin = grownF64(this.eZMin, n); this.eZTop = grownF64(this.eZTop, n);
+    this.eFirstNear = grownI32(this.eFirstNear, n); this.eFirstThrough = grownI32(this.eFirstThrough, n); this.eTool = grownI32(this.eTool, n);
+    this.eCx = grownF64(this.eCx, n); this.eCy = grownF64(this.eCy, n); this.eR = grownF64(this.eR, n);
+    this.eAu = grownF64(this.eAu, n); this.eSweep = grownF64(this.eSweep, n);
   }
 
   private lastX = NaN;
@@ -66,9 +88,10 @@ export class CutGraph {
     const key = (qx + KEY_OFFSET) * KEY_SPAN + (qy + KEY_OFFSET);
     let id = this.vertexByKey.get(key);
     if (id < 0) {
-      id = this.vx.length;
-      this.vx.push(x);
-      this.vy.push(y);
+      id = this.vCount++;
+      if (id === this.vx.length) this.growVertices();
+      this.vx[id] = x;
+      this.vy[id] = y;
       this.vertexByKey.set(key, id);
     }
     this.lastX = x;
@@ -130,19 +153,20 @@ export class CutGraph {
   }
 
   private newEdge(u: number, v: number, zLo: number, zHi: number, near: number, through: number, tool: number): number {
-    const id = this.eu.length;
-    this.eu.push(u);
-    this.ev.push(v);
-    this.eZMin.push(zLo);
-    this.eZTop.push(zHi);
-    this.eFirstNear.push(near);
-    this.eFirstThrough.push(through);
-    this.eTool.push(tool);
-    this.eCx.push(0);
-    this.eCy.push(0);
-    this.eR.push(0);
-    this.eAu.push(0);
-    this.eSweep.push(0);
+    const id = this.eCount++;
+    if (id === this.eu.length) this.growEdges();
+    this.eu[id] = u;
+    this.ev[id] = v;
+    this.eZMin[id] = zLo;
+    this.eZTop[id] = zHi;
+    this.eFirstNear[id] = near;
+    this.eFirstThrough[id] = through;
+    this.eTool[id] = tool;
+    this.eCx[id] = 0;
+    this.eCy[id] = 0;
+    this.eR[id] = 0;
+    this.eAu[id] = 0;
+    this.eSweep[id] = 0;
     return id;
   }
 
@@ -166,8 +190,8 @@ export class CutGraph {
    * where edges meet three or more at a time can start this, so the work follows the overlaps.
    */
   zipOverlaps(): void {
-    const V = this.vx.length;
-    const E = this.eu.length;
+    const V = this.vCount;
+    const E = this.eCount;
     if (E === 0) return;
     const deg = new Int32Array(V);
     for (let e = 0; e < E; e++) { deg[this.eu[e]]++; deg[this.ev[e]]++; }
@@ -266,13 +290,13 @@ export class CutGraph {
   private compact(): void {
     const arrays = [this.eu, this.ev, this.eZMin, this.eZTop, this.eFirstNear, this.eFirstThrough, this.eTool, this.eCx, this.eCy, this.eR, this.eAu, this.eSweep];
     let w = 0;
-    const n = this.eu.length;
+    const n = this.eCount;
     for (let e = 0; e < n; e++) {
       if (this.eu[e] < 0) continue;
       if (w !== e) for (const a of arrays) a[w] = a[e];
       w++;
     }
-    for (const a of arrays) a.length = w;
+    this.eCount = w;
     this.edgeByKey.clear();
     this.arcByKey.clear();
   }
@@ -282,4 +306,16 @@ export class CutGraph {
     const u = this.eu[e], v = this.ev[e];
     return Math.hypot(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
   }
+}
+
+function grownF64(a: Float64Array, n: number): Float64Array<ArrayBuffer> {
+  const b = new Float64Array(n);
+  b.set(a);
+  return b;
+}
+
+function grownI32(a: Int32Array, n: number): Int32Array<ArrayBuffer> {
+  const b = new Int32Array(n);
+  b.set(a);
+  return b;
 }

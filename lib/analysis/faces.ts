@@ -73,11 +73,12 @@ export function extractLoops(g: CutGraph): GraphLoop[] {
     tmp.length = 0;
     for (let k = start[v]; k < start[v + 1]; k++) if (alive[adj[k]]) tmp.push(adj[k]);
     const base = start[v];
-    for (const e of tmp) {
-      const w = eu[e] === v ? ev[e] : eu[e];
-      angle[e * 2 + (eu[e] === v ? 0 : 1)] = Math.atan2(vy[w] - vy[v], vx[w] - vx[v]);
-    }
+    // with two edges either order gives the same walk: only junctions need the angles
     if (tmp.length > 2) {
+      for (const e of tmp) {
+        const w = eu[e] === v ? ev[e] : eu[e];
+        angle[e * 2 + (eu[e] === v ? 0 : 1)] = Math.atan2(vy[w] - vy[v], vx[w] - vx[v]);
+      }
       tmp.sort((a, b) => angle[a * 2 + (eu[a] === v ? 0 : 1)] - angle[b * 2 + (eu[b] === v ? 0 : 1)]);
     }
     for (let i = 0; i < tmp.length; i++) {

@@ -9,14 +9,15 @@ export class FindingSink {
 
   constructor(private readonly maxPerKind: number) {}
 
-  add(kind: FindingKind, severity: FindingSeverity, line: number, message: string, part?: number): void {
+  /** `message` may be a function, called only for a finding that is listed (the rest are counted) */
+  add(kind: FindingKind, severity: FindingSeverity, line: number, message: string | (() => string), part?: number): void {
     const n = this.kept.get(kind) ?? 0;
     if (n >= this.maxPerKind) {
       this.suppressed[kind] = (this.suppressed[kind] ?? 0) + 1;
       return;
     }
     this.kept.set(kind, n + 1);
-    const f: Finding = { kind, severity, line, message };
+    const f: Finding = { kind, severity, line, message: typeof message === 'function' ? message() : message };
     if (part !== undefined) f.part = part;
     this.findings.push(f);
   }

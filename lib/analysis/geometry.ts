@@ -97,6 +97,21 @@ export function pointInRegion(xMm: number, yMm: number, region: Paths, areas: nu
   return winding > 0;
 }
 
+/** the point lies within distMm of the path's boundary */
+export function nearPath(xMm: number, yMm: number, path: Path, distMm: number): boolean {
+  const px = xMm * SCALE, py = yMm * SCALE, d2 = (distMm * SCALE) ** 2;
+  const n = path.length;
+  for (let i = 0, j = n - 1; i < n; j = i++) {
+    const ax = path[j].X, ay = path[j].Y, dx = path[i].X - ax, dy = path[i].Y - ay;
+    const len2 = dx * dx + dy * dy;
+    let t = len2 > 0 ? ((px - ax) * dx + (py - ay) * dy) / len2 : 0;
+    t = t < 0 ? 0 : t > 1 ? 1 : t;
+    const ex = ax + t * dx - px, ey = ay + t * dy - py;
+    if (ex * ex + ey * ey <= d2) return true;
+  }
+  return false;
+}
+
 export function pathsBBox(paths: Paths): BBox | null {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const p of paths) {

@@ -27,6 +27,13 @@ export interface HoldVerdict {
   reason: string;
 }
 
+/** whether the hold-down holds a freed piece, without the verdict's wording */
+export function freedPieceHeld(method: HoldDownMethod, areaMm2: number, tool: number, vacuumKpa: number, s: AnalysisSettings): boolean {
+  if (method === 'tape-glue') return true;
+  if (method === 'vacuum') return vacuumLateralHoldN(vacuumKpa, areaMm2, s.frictionMu) >= cuttingForceFor(tool, s);
+  return false;
+}
+
 /** the hold of a piece freed by the program (no tabs or skin left) */
 export function freedPieceHold(method: HoldDownMethod, areaMm2: number, tool: number, vacuumKpa: number, s: AnalysisSettings): HoldVerdict {
   switch (method) {

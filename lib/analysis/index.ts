@@ -40,7 +40,6 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
     sink.add('checks-skipped', 'info', 0, 'No sheet was given, so the through-cut, hold-down, cut-order and sheet checks were not made; give the sheet size and thickness to run them.');
   }
 
-  let T=performance.now(); const lap=(n:string)=>{const t=performance.now(); if(process.env.KT) console.log(n,(t-T).toFixed(0)); T=t;};
   const checks = new ProgramChecks({ sheet, topZ, bottomZ, machine: input.machine, spoilboardAllowanceMm: s.spoilboardAllowanceMm, toleranceMm: tol, toolDiameter }, sink);
   const scan = scanMoves(moves, {
     throughZ: bottomZ !== null ? bottomZ + tol : null,
@@ -51,7 +50,6 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
     tabMaxLengthMm: s.tabMaxLengthMm,
   }, checks);
 
-  lap('scan');
   for (const [t, line] of scan.toolFirstLine) {
     if (tools.has(t)) continue;
     sink.add('unknown-tool', 'warning', line, t === 0
@@ -64,27 +62,22 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
   let looseSlugs = 0;
   if (scan.graph && sheet && bottomZ !== null && topZ !== null) {
     const g = scan.graph;
-    g.zipOverlaps(); lap('zip');
+    g.zipOverlaps();
     const { crossed, crossings } = findCrossings(g, s.chainToleranceMm, liveEdges(g));
     for (const c of crossings) {
       const la = moves.line[g.eFirstNear[c.edgeA]], lb = moves.line[g.eFirstNear[c.edgeB]];
       sink.add('crossing-cuts', 'warning', Math.max(la, lb),
         `Through cuts cross at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)} (lines ${Math.min(la, lb)} and ${Math.max(la, lb)}): two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
     }
-    lap('crossings');
     const loops = extractLoops(g)
       .filter((l) => !l.edges.some((e) => crossed[e] === 1))
       .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm));
-    lap('loops');
     const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
-    lap('nest');
     const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
     holes = built.holes;
     looseSlugs = built.looseSlugs;
-    lap('parts');
     checkCutOrder(moves, built.parts, topZ, tol, sink);
     parts = built.parts.map((b) => b.part).sort((a, b) => a.id - b.id);
-    lap('order');
     sheetLift(sheet, input, tools, scan.firstThroughByTool, moves.line, s.thinSheetMm, sink);
   }
 

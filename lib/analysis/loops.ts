@@ -19,7 +19,14 @@ export interface LoopInfo {
   skinMm: number;
 }
 
-/** the loop's points, arc edges drawn as chords within toleranceMm (n = ⌈θ / 2acos(1 − e/r)⌉) */
+/**
+ * The loop's points, arc edges drawn as m ≥ 2 chords of at most toleranceMm sagitta. The inner
+ * points of each arc sit on a radius ρ a little outside r, chosen so the fan of chords encloses
+ * exactly the sector's area: r·ρ·sin φ + (m − 2)/2 · ρ²·sin φ = r²·θ/2 with φ = θ/m (end points
+ * stay on the arc, where the arc meets its neighbours). Areas then stay exact at a chord
+ * error coarse enough to keep Clipper's offsets cheap; the outline errs by about a third of
+ * the sagitta either way, and the turns keep their sign, so a convex loop stays convex.
+ */
 function loopPoints(g: CutGraph, loop: GraphLoop, toleranceMm: number): { xs: Float64Array; ys: Float64Array } {
   const px: number[] = [];
   const py: number[] = [];
@@ -35,18 +42,32 @@ function loopPoints(g: CutGraph, loop: GraphLoop, toleranceMm: number): { xs: Fl
     const sweep = forward ? g.eSweep[e] : -g.eSweep[e];
     const a0 = forward ? g.eAu[e] : g.eAu[e] + g.eSweep[e];
     const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
-    const m = Math.max(1, Math.ceil(Math.abs(sweep) / step));
+    const m = Math.max(2, Math.ceil(Math.abs(sweep) / step));
+    const rho = areaRadius(r, Math.abs(sweep), m);
     for (let k = 1; k < m; k++) {
-      px.push(g.eCx[e] + r * Math.cos(a0 + (sweep * k) / m));
-      py.push(g.eCy[e] + r * Math.sin(a0 + (sweep * k) / m));
+      px.push(g.eCx[e] + rho * Math.cos(a0 + (sweep * k) / m));
+      py.push(g.eCy[e] + rho * Math.sin(a0 + (sweep * k) / m));
     }
   }
   return { xs: Float64Array.from(px), ys: Float64Array.from(py) };
 }
 
+/** radius of the inner chord points that makes m chords of a sweep θ enclose the sector's area */
+export function areaRadius(r: number, theta: number, m: number): number {
+  const s = Math.sin(theta / m);
+  if (s <= 0) return r;
+  const c = 0.5 * r * r * theta;
+  if (m === 2) return c / (r * s);
+  const a = ((m - 2) / 2) * s, b = r * s;
+  return (-b + Math.sqrt(b * b + 4 * a * c)) / (2 * a);
+}
+
+/** sagitta of the chords the area work draws arcs with, mm (areas stay exact, see loopPoints) */
+export const AREA_CHORD_MM = 0.05;
+
 export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, throughZ: number, line: Uint32Array, arcToleranceMm: number): LoopInfo {
   const n = loop.verts.length;
-  const { xs, ys } = loopPoints(g, loop, arcToleranceMm);
+  const { xs, ys } = loopPoints(g, loop, Math.max(arcToleranceMm, AREA_CHORD_MM));
   let completed = -1, first = Infinity, freed = -1, allThrough = true, anyThrough = false, freeTool = -1;
   let skin = Infinity;
   for (let i = 0; i < n; i++) {

@@ -2,8 +2,8 @@
 // a loop inside nothing, or inside a hole, bounds a part; a loop inside a part is a hole.
 // Two loops so close that the kerf leaves no material between them (a finishing pass beside
 // a roughing pass) are one cut and are merged.
-import { pathAreaMm2, pathPerimeterMm, pointInPath, toPath, type Path } from './geometry';
-import type { LoopInfo } from './loops';
+import { nearPath, pathAreaMm2, pathPerimeterMm, pointInPath, toPath, type Path } from './geometry';
+import { AREA_CHORD_MM, type LoopInfo } from './loops';
 import type { BBox } from './types';
 
 export interface LoopNode {
@@ -89,7 +89,8 @@ function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
   const step = Math.max(1, Math.floor(n / 5));
   for (let k = 0; k < n; k += step) {
     const r = pointInPath(xs[k], ys[k], outer.path);
-    if (r !== -1) return r === 1;
+    // both loops are drawn within AREA_CHORD_MM of their true curves: closer than that is the same line
+    if (r === 1 || (r === 0 && !nearPath(xs[k], ys[k], outer.path, AREA_CHORD_MM + tol))) return r === 1;
   }
   return true;
 }

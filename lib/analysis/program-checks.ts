@@ -54,14 +54,14 @@ export class ProgramChecks {
       const bad = kind === 0 && movesXY && inStockZ && overSheet;
       if (bad && !this.rapidRun) {
         this.sink.add('rapid-in-stock', 'error', line,
-          `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
+          () => `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
       }
       this.rapidRun = bad;
       // spindle off while feeding in stock
       const dry = kind !== 0 && inStockZ && overSheet && !spindleOn;
       if (dry && !this.spindleRun) {
         this.sink.add('spindle-off', 'error', line,
-          `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
+          () => `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
       }
       this.spindleRun = dry;
       // entering the stock: plunge points and straight plunges
@@ -74,7 +74,7 @@ export class ProgramChecks {
         if (!this.plungeReported && d > 0 && this.plungeDepthMm > d + tol) {
           this.plungeReported = true;
           this.sink.add('straight-plunge', 'info', line,
-            `Straight plunge at line ${line}: ${fmt(this.plungeDepthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
+            () => `Straight plunge at line ${line}: ${fmt(this.plungeDepthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
         }
       } else if (kind !== 1 || movesXY || z1 > z0 + EPS) {
         this.plungeDepthMm = 0;
@@ -89,16 +89,17 @@ export class ProgramChecks {
       const outside = inStockZ && (bx0 < -m || by0 < -m || bx1 > sheet.widthMm + m || by1 > sheet.lengthMm + m);
       if (outside && !this.sheetRun) {
         this.sink.add('outside-sheet', 'warning', line,
-          `Feed move at line ${line} reaches X ${fmt(bx0 < -m ? bx0 : bx1, 2)}, Y ${fmt(by0 < -m ? by0 : by1, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
+          () => `Feed move at line ${line} reaches X ${fmt(bx0 < -m ? bx0 : bx1, 2)}, Y ${fmt(by0 < -m ? by0 : by1, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
       }
       this.sheetRun = outside;
     }
     // too deep into the spoilboard
-    if (c.bottomZ !== null) {
-      const deep = zLo < c.bottomZ - c.spoilboardAllowanceMm - tol;
+    const bottomZ = c.bottomZ;
+    if (bottomZ !== null) {
+      const deep = zLo < bottomZ - c.spoilboardAllowanceMm - tol;
       if (deep && !this.spoilRun) {
         this.sink.add('spoilboard-depth', 'warning', line,
-          `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(c.bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(c.spoilboardAllowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
+          () => `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(c.spoilboardAllowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
       }
       this.spoilRun = deep;
     }
@@ -111,7 +112,7 @@ export class ProgramChecks {
           zLo + off.z < -mach.travel.z - tol || Math.max(z0, z1) + off.z > tol;
         if (out && !this.travelRun) {
           this.sink.add('outside-travel', 'error', line,
-            `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
+            () => `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
         }
         this.travelRun = out;
       } else {
@@ -143,7 +144,7 @@ export class ProgramChecks {
         const clamped = feedMmPerMin > limit * (1 + 1e-6);
         if (clamped && this.feedRunValue !== feedMmPerMin) {
           this.sink.add('feed-clamped', 'info', line,
-            `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
+            () => `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
         }
         this.feedRunValue = clamped ? feedMmPerMin : -1;
       }
@@ -154,7 +155,7 @@ export class ProgramChecks {
     const mach = this.c.machine;
     if (mach && !mach.workOffset && this.travelLine > 0) {
       this.sink.add('outside-travel', 'error', this.travelLine,
-        `The program spans ${fmt(this.maxX - this.minX, 0)} × ${fmt(this.maxY - this.minY, 0)} × ${fmt(this.maxZ - this.minZ, 0)} mm, more than the machine's travel of ${fmt(mach.travel.x, 0)} × ${fmt(mach.travel.y, 0)} × ${fmt(mach.travel.z, 0)} mm (first exceeded at line ${this.travelLine}): it cannot run wherever the work offset is set.`);
+        () => `The program spans ${fmt(this.maxX - this.minX, 0)} × ${fmt(this.maxY - this.minY, 0)} × ${fmt(this.maxZ - this.minZ, 0)} mm, more than the machine's travel of ${fmt(mach.travel.x, 0)} × ${fmt(mach.travel.y, 0)} × ${fmt(mach.travel.z, 0)} mm (first exceeded at line ${this.travelLine}): it cannot run wherever the work offset is set.`);
     }
   }
 }

@@ -46,7 +46,7 @@ function arcExtent(cx: number, cy: number, r: number, a0: number, sweep: number,
 export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramChecks): ScanResult {
   const { x, y, z, kind, flags, tool, feed, line, arcs } = moves;
   const n = moves.count;
-  const graph = levels.throughZ !== null ? new CutGraph(levels.chainToleranceMm, levels.throughZ) : null;
+  const graph = levels.throughZ !== null ? new CutGraph(levels.chainToleranceMm, levels.throughZ, Math.max(1 << 14, n >> 2)) : null;
   const band = graph && levels.bandTopZ !== null && levels.throughZ !== null
     ? new BandCollector(graph, levels.throughZ, levels.bandTopZ, levels.stockTopZ ?? Infinity, levels.tabMaxLengthMm)
     : null;
@@ -92,6 +92,14 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
           const a0 = Math.atan2(py - cy, px - cx);
           band.arc(px, py, x1, y1, z1, cx, cy, r, a0, sw, i, t);
           arcExtent(cx, cy, r, a0, sw, ext);
+          if (ext[0] < bx0) bx0 = ext[0];
+          if (ext[1] < by0) by0 = ext[1];
+          if (ext[2] > bx1) bx1 = ext[2];
+          if (ext[3] > by1) by1 = ext[3];
+        } else if (isArc && arcs.plane[arcCursor] === 0 && pz === z1 && !(band && band.isArmed)) {
+          // a flat arc away from the bottom, no tab rise pending: its exact extent is all the checks need
+          const cx = arcs.cx[arcCursor], cy = arcs.cy[arcCursor];
+          arcExtent(cx, cy, arcs.radius[arcCursor], Math.atan2(py - cy, px - cx), arcs.sweep[arcCursor], ext);
           if (ext[0] < bx0) bx0 = ext[0];
           if (ext[1] < by0) by0 = ext[1];
           if (ext[2] > bx1) bx1 = ext[2];

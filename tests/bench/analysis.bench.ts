@@ -5,11 +5,14 @@
 // many sheets' worth of nests in sequence, each at its own sheet origin, so the sheet spec given
 // to the analysis is the whole area those sheets cover (a real program is one sheet), and the
 // machine's travel is widened to that area so the travel check runs without flagging every
-// sheet. A second figure: a nest of 6,000 small parts from fixtures/nest-sheet.ts.
+// sheet. Each sheet nests copies of 4 part designs, as a shop's job does, so the analysis
+// reuses the kerf offsets of repeated parts; the same figures follow for a program whose every
+// part is different (no reuse), and for a nest of 6,000 small parts from fixtures/nest-sheet.ts.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { generateNestSheet } from '@/fixtures/nest-sheet';
-import { BIRCH_18, generateProgram, nestExtentMm, sheetsIn } from '@/fixtures/program-generator';
+import { BIRCH_18, generateProgram, NEST_SHEET, nestExtentMm, sheetsIn } from '@/fixtures/program-generator';
+import { DEFAULT_DIALECT } from '@/fixtures/program-writer';
 import { analyze, type AnalysisInput } from '@/lib/analysis';
 import { interpret } from '@/lib/gcode';
 import { estimate } from '@/lib/kinematics';
@@ -62,6 +65,14 @@ export default async function bench(): Promise<void> {
   const suppressed = Object.values(out.summary.suppressed).reduce((a, b) => a + (b ?? 0), 0);
   console.log(`parts ${out.parts.length} (${out.summary.partsHeld} held), holes ${out.summary.holes}, findings ${out.findings.length} listed + ${suppressed} counted (${out.summary.errors} errors, ${out.summary.warnings} warnings, ${out.summary.infos} infos), plunge points ${out.plungePoints.length}`);
   console.log(`findings by kind: ${[...byKind].map(([k, n]) => `${k} ${n}`).join(', ')}`);
+
+  const distinct = generateProgram(LINES, 7, DEFAULT_DIALECT, { designsPerSheet: NEST_SHEET.partsPerSheet });
+  const dExtent = nestExtentMm(sheetsIn(distinct));
+  const dInput: AnalysisInput = { ...input, sheet: { ...dExtent, thicknessMm: BIRCH_18.thicknessMm }, machine: { ...input.machine!, travel: { x: dExtent.widthMm + 100, y: dExtent.lengthMm + 100, z: machine.travel.z } } };
+  const dInterp = best(1, () => interpret(distinct));
+  const dPlan = best(1, () => estimate(dInterp.value.moves, parsed.profile));
+  const dAn = best(1, () => analyze(dInterp.value.moves, dInput));
+  console.log(`every part different (${dAn.value.parts.length} parts, no reuse): interpret ${dInterp.ms.toFixed(0)} ms, planning ${dPlan.ms.toFixed(0)} ms, analyze ${dAn.ms.toFixed(0)} ms, ratio ${(dAn.ms / (dInterp.ms + dPlan.ms)).toFixed(3)}`);
 
   const nest = generateNestSheet({ cols: 60, rows: 100, partWidthMm: 30, partHeightMm: 20, gapMm: 8, holeRadiusMm: 4 });
   const nestInput: AnalysisInput = { ...input, sheet: nest.sheet, machine: undefined, tools: [{ number: 1, diameter: 3.175, flutes: 2, kind: 'compression' }] };

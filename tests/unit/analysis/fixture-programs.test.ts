@@ -4,6 +4,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { generateNestSheet } from '@/fixtures/nest-sheet';
+import { generateProgram, nestExtentMm, sheetsIn } from '@/fixtures/program-generator';
 import { analyze, type AnalysisInput, type HoldDownMethod } from '@/lib/analysis';
 import { interpret } from '@/lib/gcode';
 import { job } from './support/jobs';
@@ -141,5 +142,31 @@ describe('a sheet of 40 small nested parts', () => {
     const wrong = generateNestSheet({ holesLast: true });
     const r = analyze(interpret(wrong.text).moves, { ...input('tape-glue'), settings: { maxFindingsPerKind: 100 } });
     expect(r.findings.filter((f) => f.kind === 'cut-order')).toHaveLength(40);
+  });
+});
+
+describe('the generated benchmark program (fixtures/program-generator.ts)', () => {
+  // 20,000 lines: about 180 parts, past the 72 of one sheet, so the nest moves on to new sheet origins
+  const text = generateProgram(20_000, 5);
+  const started = text.match(/\(part at /g)!.length;
+  const sheets = sheetsIn(text);
+  const r = analyze(interpret(text).moves, job(18, 'clamps', { sheet: { ...nestExtentMm(sheets), thicknessMm: 18 } }));
+
+  it('spans more than one sheet, and no profile cuts across another', () => {
+    expect(sheets).toBeGreaterThan(1);
+    expect(r.findings.filter((f) => f.kind === 'crossing-cuts')).toEqual([]);
+    // the generator writes whole parts only: every one it started is found
+    expect(r.parts.length).toBe(started);
+    const boxes = r.parts.map((p) => p.bbox).sort((a, b) => a.minX - b.minX || a.minY - b.minY);
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length && boxes[j].minX < boxes[i].maxX; j++)
+        expect(boxes[j].minY >= boxes[i].maxY || boxes[j].maxY <= boxes[i].minY).toBe(true);
+  });
+
+  it('its stepdowns leave the tabs standing: every part is held by its 4 tabs, none is freed', () => {
+    expect(r.parts.every((p) => p.holes === 1 && p.holdBy === 'tabs' && p.tabs === 4 && p.freedAtLine === null)).toBe(true);
+    // tab top at Z −15 over an 18 mm sheet (BIRCH_18: tab height 3 mm)
+    for (const p of r.parts) for (const t of p.tabDetails) expect(t.heightMm).toBeCloseTo(3, 6);
+    expect(r.findings.filter((f) => f.kind === 'unheld-part' || f.kind === 'rapid-in-stock' || f.kind === 'cut-order')).toEqual([]);
   });
 });

@@ -1,6 +1,7 @@
 // Vacuum hold as pressure × area with NIST SP 811 units, and the hold verdict of each method.
 import { describe, expect, it } from 'vitest';
 import { analyze, DEFAULT_SETTINGS, vacuumLateralHoldN, vacuumNormalForceN } from '@/lib/analysis';
+import { freedPieceHeld, freedPieceHold } from '@/lib/analysis/hold';
 import { MM_PER_IN, N_PER_LBF, PA_PER_INHG, PA_PER_PSI } from '@/lib/analysis/units';
 import type { HoldDownMethod } from '@/lib/analysis';
 import { ProgramWriter } from './support/program';
@@ -96,4 +97,15 @@ describe('each hold-down method on the same through-cut program', () => {
       expect(r.findings.filter((f) => f.kind === 'unheld-part')).toHaveLength(held ? 0 : 1);
     });
   }
+});
+
+describe('the quick hold test agrees with the worded verdict', () => {
+  it('for every method, around the vacuum threshold μ·ΔP·A = F (A = 45 N / (0.45 × 60 kPa) ≈ 1667 mm²)', () => {
+    const methods: HoldDownMethod[] = ['vacuum', 'tape-glue', 'clamps', 'tabs', 'skin'];
+    for (const m of methods)
+      for (const a of [1, 500, 1600, 1666, 1667, 1700, 5000, 1e6])
+        expect(freedPieceHeld(m, a, 1, 60, DEFAULT_SETTINGS)).toBe(freedPieceHold(m, a, 1, 60, DEFAULT_SETTINGS).held);
+    expect(freedPieceHeld('vacuum', 1600, 1, 60, DEFAULT_SETTINGS)).toBe(false);
+    expect(freedPieceHeld('vacuum', 1700, 1, 60, DEFAULT_SETTINGS)).toBe(true);
+  });
 });
