@@ -37,10 +37,11 @@ export class ProgramChecks {
   constructor(private readonly c: CheckContext, private readonly sink: FindingSink) {}
 
   /**
-   * one motion move: kind 0 rapid, 1 feed, 2 arc; (bx0..by1) is its XY extent, zLo its lowest Z
+   * one motion move: kind 0 rapid, 1 feed, 2 arc; (bx0..by1) is its XY extent, zLo its lowest Z;
+   * drilling is true for the legs of a canned cycle, which plunge straight by design
    */
   motion(line: number, kind: number, x0: number, y0: number, z0: number, x1: number, y1: number, z1: number,
-    bx0: number, by0: number, bx1: number, by1: number, zLo: number, spindleOn: boolean, feedMmPerMin: number, tool: number): void {
+    bx0: number, by0: number, bx1: number, by1: number, zLo: number, spindleOn: boolean, feedMmPerMin: number, tool: number, drilling = false): void {
     const c = this.c;
     const tol = c.toleranceMm;
     const top = c.topZ;
@@ -68,7 +69,7 @@ export class ProgramChecks {
       if (z0 >= top - tol && z1 < top - tol) {
         this.plungePoints.push({ line, x: x1, y: y1, depthMm: top - z1, feedMmPerMin: kind === 0 ? 0 : feedMmPerMin, tool, ramp: movesXY, rapid: kind === 0 });
       }
-      if (kind === 1 && !movesXY && z1 < z0 - EPS && z1 < top - tol) {
+      if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < top - tol) {
         this.plungeDepthMm += Math.min(z0, top) - z1;
         const d = c.toolDiameter(tool);
         if (!this.plungeReported && d > 0 && this.plungeDepthMm > d + tol) {

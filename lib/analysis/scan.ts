@@ -122,7 +122,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
         }
       }
     }
-    checks.motion(line[i], k, px, py, pz, x1, y1, z1, bx0, by0, bx1, by1, zLo, spindleOn, feed[i], t);
+    checks.motion(line[i], k, px, py, pz, x1, y1, z1, bx0, by0, bx1, by1, zLo, spindleOn, feed[i], t, (flags[i] & MoveFlag.cannedCycle) !== 0);
     px = x1; py = y1; pz = z1;
   }
   checks.finish();

@@ -1,6 +1,7 @@
 // Program safety checks move by move: each kind on a small program with a known answer.
 import { describe, expect, it } from 'vitest';
 import { analyze, type AnalysisInput } from '@/lib/analysis';
+import { interpret } from '@/lib/gcode';
 import { ProgramWriter } from './support/program';
 import { job } from './support/jobs';
 
@@ -81,6 +82,16 @@ describe('program checks', () => {
     expect(r.plungePoints).toHaveLength(2);
     expect(r.plungePoints[0]).toMatchObject({ line: 2, x: 10, y: 10, depthMm: 10, feedMmPerMin: 600, ramp: false });
     expect(r.plungePoints[1]).toMatchObject({ line: 6, x: 150, depthMm: 10, ramp: true });
+  });
+
+  it('straight-plunge: a G81 drilling cycle plunges straight by design and is not reported; the same plunge by G1 is', () => {
+    // NISTIR 6556 §3.5.16: G81 feeds straight down to Z and rapids out
+    const run = (body: string) => {
+      const { moves } = interpret(`G21 G90 G17\nT1 M6\nS18000 M3\nG0 X50 Y50 Z5\n${body}\nG0 Z5\nM30\n`);
+      return ofKind(analyze(moves, job(18)), 'straight-plunge');
+    };
+    expect(run('G98 G81 X50 Y50 Z-15 R2 F600\nX80\nG80')).toHaveLength(0);
+    expect(run('G1 Z-15 F600')).toHaveLength(1);
   });
 
   it('sheet-lift: an up-cut tool through a 3 mm sheet under clamps; not under vacuum, not with a down-cut tool', () => {
