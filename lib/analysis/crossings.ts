@@ -27,6 +27,42 @@ function alongArc(g: CutGraph, a: number, b: number, tol: number): boolean {
   return Math.abs(d0 - r) <= band && Math.abs(d1 - r) <= band;
 }
 
+interface Grid {
+  minX: number;
+  minY: number;
+  cell: number;
+  nx: number;
+  ny: number;
+}
+
+/**
+ * the cells edge e passes through, in order: counted into counts[c + 1] (first pass), or with
+ * items given, written at fill[c] (second pass); a plain function, not a callback per cell
+ */
+function walkCells(g: CutGraph, e: number, grid: Grid, counts: Int32Array | null, fill: Int32Array | null, items: Int32Array | null): void {
+  const { minX, minY, cell, nx, ny } = grid;
+  const ax = (g.vx[g.eu[e]] - minX) / cell, ay = (g.vy[g.eu[e]] - minY) / cell;
+  const bx = (g.vx[g.ev[e]] - minX) / cell, by = (g.vy[g.ev[e]] - minY) / cell;
+  let cx = Math.min(nx - 1, Math.floor(ax)), cy = Math.min(ny - 1, Math.floor(ay));
+  const ex = Math.min(nx - 1, Math.floor(bx)), ey = Math.min(ny - 1, Math.floor(by));
+  const dx = bx - ax, dy = by - ay;
+  const sx = dx > 0 ? 1 : -1, sy = dy > 0 ? 1 : -1;
+  const tdx = dx !== 0 ? Math.abs(1 / dx) : Infinity, tdy = dy !== 0 ? Math.abs(1 / dy) : Infinity;
+  let tx = dx !== 0 ? (dx > 0 ? cx + 1 - ax : ax - cx) * tdx : Infinity;
+  let ty = dy !== 0 ? (dy > 0 ? cy + 1 - ay : ay - cy) * tdy : Infinity;
+  let c = cy * nx + cx;
+  if (items !== null) items[fill![c]++] = e;
+  else counts![c + 1]++;
+  let guard = nx + ny + 4;
+  while ((cx !== ex || cy !== ey) && guard-- > 0) {
+    if (tx < ty) { cx += sx; tx += tdx; } else { cy += sy; ty += tdy; }
+    if (cx < 0 || cy < 0 || cx >= nx || cy >= ny) break;
+    c = cy * nx + cx;
+    if (items !== null) items[fill![c]++] = e;
+    else counts![c + 1]++;
+  }
+}
+
 /** `alive` marks the edges to test (dangling ends cannot bound a part and are left out) */
 export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Array): { crossed: Uint8Array; crossings: Crossing[] } {
   const E = g.edgeCount;
@@ -47,29 +83,12 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
   const ny = Math.floor((maxY - minY) / cell) + 1;
   // two passes over the traversal: count, then fill (CSR)
   const counts = new Int32Array(nx * ny + 1);
-  const visit = (e: number, fn: (c: number) => void) => {
-    const ax = (vx[eu[e]] - minX) / cell, ay = (vy[eu[e]] - minY) / cell;
-    const bx = (vx[ev[e]] - minX) / cell, by = (vy[ev[e]] - minY) / cell;
-    let cx = Math.min(nx - 1, Math.floor(ax)), cy = Math.min(ny - 1, Math.floor(ay));
-    const ex = Math.min(nx - 1, Math.floor(bx)), ey = Math.min(ny - 1, Math.floor(by));
-    const dx = bx - ax, dy = by - ay;
-    const sx = dx > 0 ? 1 : -1, sy = dy > 0 ? 1 : -1;
-    const tdx = dx !== 0 ? Math.abs(1 / dx) : Infinity, tdy = dy !== 0 ? Math.abs(1 / dy) : Infinity;
-    let tx = dx !== 0 ? (dx > 0 ? cx + 1 - ax : ax - cx) * tdx : Infinity;
-    let ty = dy !== 0 ? (dy > 0 ? cy + 1 - ay : ay - cy) * tdy : Infinity;
-    fn(cy * nx + cx);
-    let guard = nx + ny + 4;
-    while ((cx !== ex || cy !== ey) && guard-- > 0) {
-      if (tx < ty) { cx += sx; tx += tdx; } else { cy += sy; ty += tdy; }
-      if (cx < 0 || cy < 0 || cx >= nx || cy >= ny) break;
-      fn(cy * nx + cx);
-    }
-  };
-  for (let e = 0; e < E; e++) if (alive[e]) visit(e, (c) => { counts[c + 1]++; });
+  const grid: Grid = { minX, minY, cell, nx, ny };
+  for (let e = 0; e < E; e++) if (alive[e]) walkCells(g, e, grid, counts, null, null);
   for (let c = 0; c < nx * ny; c++) counts[c + 1] += counts[c];
   const fill = counts.slice(0, nx * ny);
   const items = new Int32Array(counts[nx * ny]);
-  for (let e = 0; e < E; e++) if (alive[e]) visit(e, (c) => { items[fill[c]++] = e; });
+  for (let e = 0; e < E; e++) if (alive[e]) walkCells(g, e, grid, null, fill, items);
   let tests = 0;
   for (let c = 0; c < nx * ny && tests < MAX_PAIR_TESTS; c++) {
     const lo = counts[c], hi = counts[c + 1];

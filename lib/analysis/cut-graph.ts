@@ -2,6 +2,9 @@
 // the skin band of the bottom (and every tab rise between two through cuts) becomes an edge
 // between end points snapped to the chain tolerance; passes that retrace the same path land
 // on the same edge, which keeps the deepest cut and the first move that cut it through.
+// Each vertex keeps a list of the edges at it (a head per vertex, a next link per edge end), so
+// finding whether a retracing pass lands on an existing edge walks the two or three edges at
+// one end instead of hashing every edge: only the snapped points need the hash table.
 // Closed loops are then read off this graph (faces.ts), whichever pass made them. A flat arc
 // stays an arc: it becomes sub-arcs of at most 45° (few edges, exact chords made only for the
 // loops found), and tabs, ramps and helices become straight chords.
@@ -9,36 +12,39 @@ import { KeyTable } from './key-table';
 
 const KEY_OFFSET = 2 ** 24;
 const KEY_SPAN = 2 ** 25;
-const VERTEX_SPAN = 2 ** 26;
 const KEY_LIMIT = KEY_OFFSET - 1;
 const SUB_ARC_RAD = Math.PI / 4;
 
 export class CutGraph {
   // typed arrays with spare room (grown by doubling): read them below edgeCount / vertexCount
-  vx = new Float64Array(256);
-  vy = new Float64Array(256);
-  eu = new Int32Array(256);
-  ev = new Int32Array(256);
+  // typed arrays with spare room (grown by doubling): read them below edgeCount / vertexCount;
+  // sized from the capacity hint so a large program does not copy them over and over
+  vx: Float64Array;
+  vy: Float64Array;
+  eu: Int32Array;
+  ev: Int32Array;
   /** lowest Z any pass cut this edge at */
-  eZMin = new Float64Array(256);
+  eZMin: Float64Array;
   /** highest Z of the pass that cut it lowest (the top of a tab) */
-  eZTop = new Float64Array(256);
+  eZTop: Float64Array;
   /** move index that first cut the edge within the band */
-  eFirstNear = new Int32Array(256);
+  eFirstNear: Int32Array;
   /** move index that first cut the edge through, −1 while never */
-  eFirstThrough = new Int32Array(256);
-  eTool = new Int32Array(256);
+  eFirstThrough: Int32Array;
+  eTool: Int32Array;
   /** arc edges: centre, radius (0 for a straight edge), angle at end u, signed sweep from u to v */
-  eCx = new Float64Array(256);
-  eCy = new Float64Array(256);
-  eR = new Float64Array(256);
-  eAu = new Float64Array(256);
-  eSweep = new Float64Array(256);
+  eCx: Float64Array;
+  eCy: Float64Array;
+  eR: Float64Array;
+  eAu: Float64Array;
+  eSweep: Float64Array;
+  /** first edge end at each vertex (2e for end u of edge e, 2e + 1 for end v), −1 for none */
+  private vHead: Int32Array;
+  /** the next edge end at the same vertex, −1 at the list's end */
+  private hNext: Int32Array;
   private eCount = 0;
   private vCount = 0;
   private readonly vertexByKey: KeyTable;
-  private edgeByKey: KeyTable;
-  private arcByKey = new KeyTable(1 << 12);
   private readonly invQ: number;
 
   /** capacityHint: about how many points to expect, so the tables rarely need to grow */
@@ -48,8 +54,15 @@ export class CutGraph {
     capacityHint = 1 << 14,
   ) {
     this.invQ = 1 / chainToleranceMm;
+    const n = Math.max(256, capacityHint);
+    this.vx = new Float64Array(n); this.vy = new Float64Array(n);
+    this.eu = new Int32Array(n); this.ev = new Int32Array(n);
+    this.eZMin = new Float64Array(n); this.eZTop = new Float64Array(n);
+    this.eFirstNear = new Int32Array(n); this.eFirstThrough = new Int32Array(n); this.eTool = new Int32Array(n);
+    this.eCx = new Float64Array(n); this.eCy = new Float64Array(n); this.eR = new Float64Array(n);
+    this.eAu = new Float64Array(n); this.eSweep = new Float64Array(n);
+    this.vHead = new Int32Array(n); this.hNext = new Int32Array(2 * n);
     this.vertexByKey = new KeyTable(capacityHint);
-    this.edgeByKey = new KeyTable(capacityHint);
   }
 
   get edgeCount(): number {
@@ -64,6 +77,7 @@ export class CutGraph {
     const n = this.vx.length * 2;
     this.vx = grownF64(this.vx, n);
     this.vy = grownF64(this.vy, n);
+    this.vHead = grownI32(this.vHead, n);
   }
 
   private growEdges(): void {
@@ -73,6 +87,27 @@ export class CutGraph {
     this.eFirstNear = grownI32(this.eFirstNear, n); this.eFirstThrough = grownI32(this.eFirstThrough, n); this.eTool = grownI32(this.eTool, n);
     this.eCx = grownF64(this.eCx, n); this.eCy = grownF64(this.eCy, n); this.eR = grownF64(this.eR, n);
     this.eAu = grownF64(this.eAu, n); this.eSweep = grownF64(this.eSweep, n);
+    this.hNext = grownI32(this.hNext, 2 * n);
+  }
+
+  /** the live edge u–v, an arc edge or a straight one as asked, or −1 */
+  private findEdge(u: number, v: number, arc: boolean): number {
+    const eu = this.eu, ev = this.ev, eR = this.eR, next = this.hNext;
+    for (let h = this.vHead[u]; h >= 0; h = next[h]) {
+      const e = h >> 1;
+      const a = eu[e];
+      if (a < 0) continue; // replaced by zipOverlaps
+      if ((h & 1 ? a : ev[e]) === v && eR[e] > 0 === arc) return e;
+    }
+    return -1;
+  }
+
+  private link(e: number): void {
+    const u = this.eu[e], v = this.ev[e];
+    this.hNext[2 * e] = this.vHead[u];
+    this.vHead[u] = 2 * e;
+    this.hNext[2 * e + 1] = this.vHead[v];
+    this.vHead[v] = 2 * e + 1;
   }
 
   private lastX = NaN;
@@ -86,13 +121,13 @@ export class CutGraph {
     qx = qx > KEY_LIMIT ? KEY_LIMIT : qx < -KEY_LIMIT ? -KEY_LIMIT : qx;
     qy = qy > KEY_LIMIT ? KEY_LIMIT : qy < -KEY_LIMIT ? -KEY_LIMIT : qy;
     const key = (qx + KEY_OFFSET) * KEY_SPAN + (qy + KEY_OFFSET);
-    let id = this.vertexByKey.get(key);
+    let id = this.vertexByKey.getOrSet(key, this.vCount);
     if (id < 0) {
       id = this.vCount++;
       if (id === this.vx.length) this.growVertices();
       this.vx[id] = x;
       this.vy[id] = y;
-      this.vertexByKey.set(key, id);
+      this.vHead[id] = -1;
     }
     this.lastX = x;
     this.lastY = y;
@@ -107,13 +142,12 @@ export class CutGraph {
     if (a === b) return;
     const u = a < b ? a : b;
     const v = a < b ? b : a;
-    const key = u * VERTEX_SPAN + v;
     const zLo = z0 < z1 ? z0 : z1;
     const zHi = z0 < z1 ? z1 : z0;
     const through = (z0 + z1) * 0.5 <= this.throughZ;
-    const e = this.edgeByKey.get(key);
+    const e = this.findEdge(u, v, false);
     if (e < 0) {
-      this.edgeByKey.set(key, this.newEdge(u, v, zLo, zHi, move, through ? move : -1, tool));
+      this.newEdge(u, v, zLo, zHi, move, through ? move : -1, tool);
       return;
     }
     this.record(e, zLo, zHi, move, through, tool);
@@ -132,11 +166,9 @@ export class CutGraph {
       if (a !== b) {
         const u = a < b ? a : b;
         const v = a < b ? b : a;
-        const key = u * VERTEX_SPAN + v;
-        const e = this.arcByKey.get(key);
+        const e = this.findEdge(u, v, true);
         if (e < 0) {
           const id = this.newEdge(u, v, z, z, move, through ? move : -1, tool);
-          this.arcByKey.set(key, id);
           const startAngle = a0 + (sweep * (k - 1)) / n;
           const step = sweep / n;
           this.eCx[id] = cx;
@@ -167,6 +199,7 @@ export class CutGraph {
     this.eR[id] = 0;
     this.eAu[id] = 0;
     this.eSweep[id] = 0;
+    this.link(id);
     return id;
   }
 
@@ -260,14 +293,12 @@ export class CutGraph {
   private mergeOrAdd(a: number, b: number, src: number, adjacency: (v: number) => number[]): void {
     const u = a < b ? a : b;
     const v = a < b ? b : a;
-    const key = u * VERTEX_SPAN + v;
-    const f = this.edgeByKey.get(key);
-    if (f >= 0 && f !== src && this.eu[f] >= 0) {
+    const f = this.findEdge(u, v, false);
+    if (f >= 0 && f !== src) {
       this.mergeRecord(f, src);
       return;
     }
     const id = this.newEdge(u, v, this.eZMin[src], this.eZTop[src], this.eFirstNear[src], this.eFirstThrough[src], this.eTool[src]);
-    this.edgeByKey.set(key, id);
     adjacency(u).push(id);
     adjacency(v).push(id);
   }
@@ -297,8 +328,9 @@ export class CutGraph {
       w++;
     }
     this.eCount = w;
-    this.edgeByKey.clear();
-    this.arcByKey.clear();
+    // the edges are renumbered: relink the lists
+    this.vHead.fill(-1, 0, this.vCount);
+    for (let e = 0; e < w; e++) this.link(e);
   }
 
   edgeLengthMm(e: number): number {

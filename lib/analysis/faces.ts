@@ -11,12 +11,21 @@ export interface GraphLoop {
   edges: Int32Array;
 }
 
+/** the graph with its dangling ends pruned: alive[e] = 1 for an edge of a cycle or a path between cycles */
+export interface PrunedGraph {
+  alive: Uint8Array;
+  deg: Int32Array;
+  start: Int32Array;
+  adj: Int32Array;
+}
+
 /** edges left once dangling ends are pruned: 1 = part of a cycle or a path between cycles */
 export function liveEdges(g: CutGraph): Uint8Array {
   return prune(g).alive;
 }
 
-function prune(g: CutGraph) {
+/** made once and shared by the crossing check and the loop walk (the graph must not change between) */
+export function prune(g: CutGraph): PrunedGraph {
   const V = g.vertexCount;
   const E = g.edgeCount;
   const eu = g.eu, ev = g.ev;
@@ -54,12 +63,12 @@ function prune(g: CutGraph) {
   return { alive, deg, start, adj };
 }
 
-export function extractLoops(g: CutGraph): GraphLoop[] {
+export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): GraphLoop[] {
   const V = g.vertexCount;
   const E = g.edgeCount;
   if (E === 0) return [];
   const eu = g.eu, ev = g.ev;
-  const { alive, deg, start, adj } = prune(g);
+  const { alive, deg, start, adj } = pruned;
   // sort live edges around each vertex by angle, remember each edge end's position
   const order = new Int32Array(2 * E);
   const count = new Int32Array(V);

@@ -8,7 +8,7 @@
 import type { MoveList } from '@/lib/gcode/move-list';
 import { findCrossings } from './crossings';
 import { checkCutOrder } from './cut-order';
-import { extractLoops, liveEdges } from './faces';
+import { extractLoops, prune } from './faces';
 import { FindingSink, fmt } from './findings';
 import { describeLoop } from './loops';
 import { nestLoops } from './nesting';
@@ -63,14 +63,15 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
   if (scan.graph && sheet && bottomZ !== null && topZ !== null) {
     const g = scan.graph;
     g.zipOverlaps();
-    const { crossed, crossings } = findCrossings(g, s.chainToleranceMm, liveEdges(g));
+    const pruned = prune(g);
+    const { crossed, crossings } = findCrossings(g, s.chainToleranceMm, pruned.alive);
     for (const c of crossings) {
       const la = moves.line[g.eFirstNear[c.edgeA]], lb = moves.line[g.eFirstNear[c.edgeB]];
       sink.add('crossing-cuts', 'warning', Math.max(la, lb),
         `Through cuts cross at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)} (lines ${Math.min(la, lb)} and ${Math.max(la, lb)}): two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
     }
-    const loops = extractLoops(g)
-      .filter((l) => !l.edges.some((e) => crossed[e] === 1))
+    const loops = extractLoops(g, pruned)
+      .filter((l) => !touchesCrossing(l.edges, crossed))
       .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm));
     const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
     const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
@@ -106,6 +107,11 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
       note: suppressedTotal > 0 ? `${ANALYSIS_NOTE} ${suppressedTotal} further findings of kinds already listed are counted, not listed.` : ANALYSIS_NOTE,
     },
   };
+}
+
+function touchesCrossing(edges: Int32Array, crossed: Uint8Array): boolean {
+  for (let i = 0; i < edges.length; i++) if (crossed[edges[i]] === 1) return true;
+  return false;
 }
 
 function validSheet(sheet: SheetSpec | null, sink: FindingSink): SheetSpec | null {

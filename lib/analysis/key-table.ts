@@ -17,8 +17,9 @@ export class KeyTable {
   }
 
   private slot(key: number): number {
-    const lo = key % 4294967296;
-    const hi = (key - lo) / 4294967296;
+    // keys are whole and non-negative: a power-of-two split is exact and cheaper than a float modulo
+    const hi = Math.floor(key * 2.3283064365386963e-10);
+    const lo = key - hi * 4294967296;
     return (Math.imul(lo | 0, 0x9e3779b1) ^ Math.imul(hi | 0, 0x85ebca6b)) & this.mask;
   }
 
@@ -39,6 +40,17 @@ export class KeyTable {
       const k = keys[i];
       if (k === key) { this.vals[i] = val; return; }
       if (k === -1) { keys[i] = key; this.vals[i] = val; this.size++; return; }
+    }
+  }
+
+  /** the id stored for key, or −1 after storing val under it (one probe sequence for both) */
+  getOrSet(key: number, val: number): number {
+    if ((this.size + 1) * 2 > this.keys.length) this.grow();
+    const keys = this.keys;
+    for (let i = this.slot(key); ; i = (i + 1) & this.mask) {
+      const k = keys[i];
+      if (k === key) return this.vals[i];
+      if (k === -1) { keys[i] = key; this.vals[i] = val; this.size++; return -1; }
     }
   }
 

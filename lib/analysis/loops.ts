@@ -28,28 +28,43 @@ export interface LoopInfo {
  * the sagitta either way, and the turns keep their sign, so a convex loop stays convex.
  */
 function loopPoints(g: CutGraph, loop: GraphLoop, toleranceMm: number): { xs: Float64Array; ys: Float64Array } {
-  const px: number[] = [];
-  const py: number[] = [];
   const n = loop.verts.length;
+  // first the chord count of each arc edge, so the points go straight into their arrays
+  const chords = new Int32Array(n);
+  let total = n;
   for (let i = 0; i < n; i++) {
-    const from = loop.verts[i];
-    px.push(g.vx[from]);
-    py.push(g.vy[from]);
     const e = loop.edges[i];
     const r = g.eR[e];
     if (r <= 0) continue;
+    const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
+    const m = Math.max(2, Math.ceil(Math.abs(g.eSweep[e]) / step));
+    chords[i] = m;
+    total += m - 1;
+  }
+  const xs = new Float64Array(total);
+  const ys = new Float64Array(total);
+  let o = 0;
+  for (let i = 0; i < n; i++) {
+    const from = loop.verts[i];
+    xs[o] = g.vx[from];
+    ys[o] = g.vy[from];
+    o++;
+    const m = chords[i];
+    if (m === 0) continue;
+    const e = loop.edges[i];
+    const r = g.eR[e];
     const forward = g.eu[e] === from;
     const sweep = forward ? g.eSweep[e] : -g.eSweep[e];
     const a0 = forward ? g.eAu[e] : g.eAu[e] + g.eSweep[e];
-    const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
-    const m = Math.max(2, Math.ceil(Math.abs(sweep) / step));
     const rho = areaRadius(r, Math.abs(sweep), m);
+    const cx = g.eCx[e], cy = g.eCy[e];
     for (let k = 1; k < m; k++) {
-      px.push(g.eCx[e] + rho * Math.cos(a0 + (sweep * k) / m));
-      py.push(g.eCy[e] + rho * Math.sin(a0 + (sweep * k) / m));
+      xs[o] = cx + rho * Math.cos(a0 + (sweep * k) / m);
+      ys[o] = cy + rho * Math.sin(a0 + (sweep * k) / m);
+      o++;
     }
   }
-  return { xs: Float64Array.from(px), ys: Float64Array.from(py) };
+  return { xs, ys };
 }
 
 /** radius of the inner chord points that makes m chords of a sweep θ enclose the sector's area */

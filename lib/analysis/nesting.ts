@@ -17,6 +17,8 @@ export interface LoopNode {
   depth: number;
   parent: number;
   children: number[];
+  /** lowest() of the path, kept once worked out (shape-cache keys) */
+  lowestIndex?: number;
 }
 
 export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number, toleranceMm: number): LoopNode[] {

@@ -9,7 +9,7 @@ import { FindingSink, fmt } from './findings';
 import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, SCALE, type Path, type Paths } from './geometry';
 import { freedPieceHeld, freedPieceHold } from './hold';
 import type { LoopNode } from './nesting';
-import { ShapeCache, shapeKey, translatePath } from './shape-cache';
+import { lowest, ShapeCache, shapeKey, translatePath } from './shape-cache';
 import type { AnalysisSettings } from './settings';
 import type { AnalysisPart, BBox, HoldDownMethod } from './types';
 
@@ -67,8 +67,9 @@ export class PartShapes {
   part(node: LoopNode, holeNodes: LoopNode[]): PlacedShape {
     const paths: Path[] = [node.path];
     const radii = [node.radiusMm];
-    for (const h of holeNodes) { paths.push(h.path); radii.push(h.radiusMm); }
-    const k = shapeKey(paths, radii);
+    const starts = [startOf(node)];
+    for (const h of holeNodes) { paths.push(h.path); radii.push(h.radiusMm); starts.push(startOf(h)); }
+    const k = shapeKey(paths, radii, starts);
     const rel = this.parts.get(k, () => {
       const s = partShape(node, holeNodes);
       const outline = s.outline.map((p) => translatePath(p, -k.ox, -k.oy));
@@ -86,9 +87,14 @@ export class PartShapes {
 
   slug(hole: LoopNode, nodes: LoopNode[]): number {
     const kids = hole.children.map((c) => nodes[c]);
-    const k = shapeKey([hole.path, ...kids.map((c) => c.path)], [hole.radiusMm, ...kids.map((c) => c.radiusMm)]);
+    const k = shapeKey([hole.path, ...kids.map((c) => c.path)], [hole.radiusMm, ...kids.map((c) => c.radiusMm)], [startOf(hole), ...kids.map(startOf)]);
     return this.slugs.get(k, () => slugOf(hole, nodes));
   }
+}
+
+/** a loop's path takes part in several keys (its part's, its parent's, a slug's): its start is found once */
+function startOf(node: LoopNode): number {
+  return (node.lowestIndex ??= lowest(node.path));
 }
 
 export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSink, shapes = new PartShapes()): { parts: BuiltPart[]; holes: number; looseSlugs: number } {

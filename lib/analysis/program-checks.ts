@@ -33,8 +33,19 @@ export class ProgramChecks {
   private minY = Infinity; private maxY = -Infinity;
   private minZ = Infinity; private maxZ = -Infinity;
   private travelLine = 0;
+  // the tool rarely changes from one move to the next: keep its diameter rather than look it up per move
+  private lastTool = NaN;
+  private lastDiameterMm = 0;
 
   constructor(private readonly c: CheckContext, private readonly sink: FindingSink) {}
+
+  private diameterOf(tool: number): number {
+    if (tool !== this.lastTool) {
+      this.lastTool = tool;
+      this.lastDiameterMm = this.c.toolDiameter(tool);
+    }
+    return this.lastDiameterMm;
+  }
 
   /**
    * one motion move: kind 0 rapid, 1 feed, 2 arc; (bx0..by1) is its XY extent, zLo its lowest Z;
@@ -71,7 +82,7 @@ export class ProgramChecks {
       }
       if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < top - tol) {
         this.plungeDepthMm += Math.min(z0, top) - z1;
-        const d = c.toolDiameter(tool);
+        const d = this.diameterOf(tool);
         if (!this.plungeReported && d > 0 && this.plungeDepthMm > d + tol) {
           this.plungeReported = true;
           this.sink.add('straight-plunge', 'info', line,
@@ -85,7 +96,7 @@ export class ProgramChecks {
 
     // cutting outside the sheet
     if (sheet !== null && kind !== 0) {
-      const r = c.toolDiameter(tool) / 2;
+      const r = this.diameterOf(tool) / 2;
       const m = r + tol;
       const outside = inStockZ && (bx0 < -m || by0 < -m || bx1 > sheet.widthMm + m || by1 > sheet.lengthMm + m);
       if (outside && !this.sheetRun) {

@@ -16,7 +16,8 @@ export interface ShapeKey {
   oy: number;
 }
 
-function lowest(path: Path): number {
+/** index of the path's lowest-leftmost vertex, where its key starts */
+export function lowest(path: Path): number {
   let s = 0;
   for (let i = 1; i < path.length; i++) {
     const p = path[i], q = path[s];
@@ -25,9 +26,12 @@ function lowest(path: Path): number {
   return s;
 }
 
-/** translation-invariant key of `paths` (the first one sets the origin) and the numbers in `extra` */
-export function shapeKey(paths: Path[], extra: number[]): ShapeKey {
-  const s0 = lowest(paths[0]);
+/**
+ * translation-invariant key of `paths` (the first one sets the origin) and the numbers in
+ * `extra`; `starts` may give each path's lowest() when the caller keeps it
+ */
+export function shapeKey(paths: Path[], extra: number[], starts?: number[]): ShapeKey {
+  const s0 = starts ? starts[0] : lowest(paths[0]);
   const ox = paths[0][s0].X, oy = paths[0][s0].Y;
   let size = extra.length;
   for (const p of paths) size += 1 + 2 * p.length;
@@ -38,7 +42,7 @@ export function shapeKey(paths: Path[], extra: number[]): ShapeKey {
   for (let k = 0; k < paths.length; k++) {
     // each path starts at its own lowest vertex, so where a loop was entered does not matter
     const path = paths[k];
-    const n = path.length, start = k === 0 ? s0 : lowest(path);
+    const n = path.length, start = k === 0 ? s0 : starts ? starts[k] : lowest(path);
     data[o++] = n;
     for (let j = start, c = 0; c < n; c++, j = j + 1 === n ? 0 : j + 1) {
       const p = path[j];

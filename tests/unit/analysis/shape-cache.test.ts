@@ -6,7 +6,7 @@ import { pathsAreaMm2, pathsBBox, toPath } from '@/lib/analysis/geometry';
 import { areaRadius, type LoopInfo } from '@/lib/analysis/loops';
 import type { LoopNode } from '@/lib/analysis/nesting';
 import { PartShapes, partShape } from '@/lib/analysis/parts';
-import { shapeKey } from '@/lib/analysis/shape-cache';
+import { lowest, shapeKey } from '@/lib/analysis/shape-cache';
 
 /** a rounded rectangle (corner radius rc, drawn as chords) at (x0, y0), counter-clockwise */
 function roundedRect(x0: number, y0: number, w: number, h: number, rc: number): { xs: number[]; ys: number[] } {
@@ -55,6 +55,19 @@ describe('shape cache', () => {
     }
     expect(shapes.parts.hits).toBeGreaterThanOrEqual(3);
     expect(shapes.parts.misses).toBeGreaterThanOrEqual(1);
+  });
+
+  it('given each path\'s lowest vertex, the key is the one it works out itself; a loop entered elsewhere keys the same', () => {
+    const outer = node(roundedRect(5, 7, 90, 60, 6), 3);
+    const hole = node(circlePts(40, 30, 8), 3);
+    const a = shapeKey([outer.path, hole.path], [3, 3]);
+    const b = shapeKey([outer.path, hole.path], [3, 3], [lowest(outer.path), lowest(hole.path)]);
+    expect(b.hash).toBe(a.hash);
+    expect(Array.from(b.data)).toEqual(Array.from(a.data));
+    // the same outline started at another vertex (rotation of the point list)
+    const rotated = [...outer.path.slice(11), ...outer.path.slice(0, 11)];
+    const c = shapeKey([rotated, hole.path], [3, 3], [lowest(rotated), lowest(hole.path)]);
+    expect(Array.from(c.data)).toEqual(Array.from(a.data));
   });
 
   it('a different hole radius or tool radius is a different key', () => {

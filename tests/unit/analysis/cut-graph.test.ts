@@ -1,0 +1,110 @@
+// The cut graph's building blocks: the snapped-point hash table against JavaScript's own Map
+// (ECMA-262 §24.1, an independent reference), and the graph's merging of retraced passes,
+// edge lists per vertex, zipping of split laps, and the crossing check, against hand-counted
+// answers for small drawings (a square has 4 edges and 4 vertices; two diagonals of a square
+// cross at its centre, elementary geometry).
+import { describe, expect, it } from 'vitest';
+import { findCrossings } from '@/lib/analysis/crossings';
+import { CutGraph } from '@/lib/analysis/cut-graph';
+import { extractLoops, prune } from '@/lib/analysis/faces';
+import { KeyTable } from '@/lib/analysis/key-table';
+
+const THROUGH_Z = -17.95;
+
+/** a square lap at depth z from move index `move` on, counter-clockwise from (x0, y0) */
+function square(g: CutGraph, x0: number, y0: number, side: number, z: number, move: number): void {
+  const pts = [[x0, y0], [x0 + side, y0], [x0 + side, y0 + side], [x0, y0 + side], [x0, y0]];
+  for (let i = 1; i < pts.length; i++) g.addPiece(pts[i - 1][0], pts[i - 1][1], z, pts[i][0], pts[i][1], z, move + i - 1, 1);
+}
+
+describe('KeyTable', () => {
+  it('getOrSet and get agree with a Map over many keys, through the table growing', () => {
+    const t = new KeyTable(4);
+    const ref = new Map<number, number>();
+    let seed = 12345;
+    const rnd = () => (seed = (Math.imul(seed, 1103515245) + 12345) >>> 0);
+    for (let i = 0; i < 20000; i++) {
+      // keys below 2^53, many repeated
+      const key = (rnd() % 3000) * 2 ** 25 + (rnd() % 7);
+      const had = ref.get(key);
+      const got = t.getOrSet(key, i);
+      expect(got).toBe(had ?? -1);
+      if (had === undefined) ref.set(key, i);
+    }
+    for (const [k, v] of ref) expect(t.get(k)).toBe(v);
+    expect(t.get(2 ** 52 + 1)).toBe(-1);
+  });
+});
+
+describe('CutGraph', () => {
+  it('passes that retrace a square land on the same 4 edges, keeping the deepest cut and its first through move', () => {
+    const g = new CutGraph(0.01, THROUGH_Z);
+    square(g, 0, 0, 50, -17.5, 0); // within the band, not through
+    square(g, 0, 0, 50, -18.2, 10); // through
+    square(g, 0, 0, 50, -18.0, 20); // through again, less deep
+    expect(g.vertexCount).toBe(4);
+    expect(g.edgeCount).toBe(4);
+    for (let e = 0; e < 4; e++) {
+      expect(g.eZMin[e]).toBe(-18.2);
+      expect(g.eFirstNear[e]).toBe(e);
+      expect(g.eFirstThrough[e]).toBe(10 + e);
+    }
+  });
+
+  it('points within the chain tolerance snap to one vertex, and a reversed lap is the same edges', () => {
+    const g = new CutGraph(0.01, THROUGH_Z);
+    square(g, 0, 0, 50, -18.2, 0);
+    // the same square, clockwise, each corner moved by under half the tolerance
+    const pts = [[0.002, 0.001], [-0.001, 50.003], [50.002, 49.998], [49.999, 0.002], [0.002, 0.001]];
+    for (let i = 1; i < pts.length; i++) g.addPiece(pts[i - 1][0], pts[i - 1][1], -18.3, pts[i][0], pts[i][1], -18.3, 10 + i, 1);
+    expect(g.vertexCount).toBe(4);
+    expect(g.edgeCount).toBe(4);
+    for (let e = 0; e < 4; e++) expect(g.eZMin[e]).toBe(-18.3);
+  });
+
+  it('an arc and a straight chord between the same two points stay two edges; a retraced arc stays one', () => {
+    const g = new CutGraph(0.01, THROUGH_Z);
+    // half circle of radius 10 about (0, 0) from (10, 0) to (-10, 0): 4 sub-arcs of 45°
+    g.addArc(10, 0, -10, 0, -18.2, 0, 0, 10, 0, Math.PI, 0, 1);
+    g.addArc(10, 0, -10, 0, -18.3, 0, 0, 10, 0, Math.PI, 1, 1);
+    expect(g.edgeCount).toBe(4);
+    expect(g.vertexCount).toBe(5);
+    g.addPiece(-10, 0, -18.2, 10, 0, -18.2, 2, 1);
+    expect(g.edgeCount).toBe(5);
+    let arcs = 0;
+    for (let e = 0; e < g.edgeCount; e++) if (g.eR[e] > 0) { arcs++; expect(g.eZMin[e]).toBe(-18.3); }
+    expect(arcs).toBe(4);
+    // the half disc is one bounded face of area πr²/2 > 0
+    expect(extractLoops(g).length).toBe(1);
+  });
+
+  it('zipOverlaps joins a lap split at a midpoint with the unsplit lap, so one loop of 5 edges remains', () => {
+    const g = new CutGraph(0.01, THROUGH_Z);
+    square(g, 0, 0, 40, -18.2, 0);
+    // a second lap with its bottom side broken at X 15 (a tab end, say)
+    g.addPiece(0, 0, -18.3, 15, 0, -18.3, 10, 1);
+    g.addPiece(15, 0, -18.3, 40, 0, -18.3, 11, 1);
+    g.addPiece(40, 0, -18.3, 40, 40, -18.3, 12, 1);
+    expect(g.edgeCount).toBe(6);
+    g.zipOverlaps();
+    expect(g.edgeCount).toBe(5);
+    const loops = extractLoops(g);
+    expect(loops.length).toBe(1);
+    expect(loops[0].edges.length).toBe(5);
+    // after renumbering, later retraces still find the edges at each vertex
+    g.addPiece(40, 40, -18.4, 0, 40, -18.4, 20, 1);
+    expect(g.edgeCount).toBe(5);
+  });
+
+  it('two diagonals of a square cross once at its centre; the sides alone do not cross', () => {
+    const g = new CutGraph(0.01, THROUGH_Z);
+    square(g, 0, 0, 20, -18.2, 0);
+    expect(findCrossings(g, 0.01, prune(g).alive).crossings.length).toBe(0);
+    g.addPiece(0, 0, -18.2, 20, 20, -18.2, 10, 1);
+    g.addPiece(20, 0, -18.2, 0, 20, -18.2, 11, 1);
+    const { crossings } = findCrossings(g, 0.01, prune(g).alive);
+    expect(crossings.length).toBe(1);
+    expect(crossings[0].x).toBeCloseTo(10, 9);
+    expect(crossings[0].y).toBeCloseTo(10, 9);
+  });
+});
