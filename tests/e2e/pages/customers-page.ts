@@ -1,14 +1,13 @@
 // Page object of /customers: the list and the create-customer form.
-import type { Page } from 'playwright-core';
+import { FormPage } from './form-page';
 
-export class CustomersPage {
-  constructor(private readonly page: Page, private readonly baseUrl: string) {}
+export class CustomersPage extends FormPage {
 
   async open(): Promise<void> {
     await this.page.goto(`${this.baseUrl}/customers`);
   }
 
-  private form() {
+  protected form() {
     return this.page.getByRole('form', { name: 'New customer' });
   }
 
@@ -21,20 +20,6 @@ export class CustomersPage {
 
   async submit(): Promise<void> {
     await this.form().getByRole('button', { name: 'Add customer' }).click();
-  }
-
-  async fieldError(label: string): Promise<string> {
-    const input = this.form().getByLabel(label, { exact: true });
-    const id = await input.getAttribute('id');
-    const error = this.page.locator(`#${id}-error`);
-    await error.waitFor();
-    return (await error.innerText()).replace('▲', '').trim();
-  }
-
-  async statusMessage(): Promise<string> {
-    const status = this.form().locator('[role="status"] [data-part="title"]');
-    await status.waitFor();
-    return (await status.innerText()).trim();
   }
 
   async names(): Promise<string[]> {

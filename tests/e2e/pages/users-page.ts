@@ -1,15 +1,14 @@
 // Page object of /admin/users: the users table with its row controls and the
 // create-user form.
-import type { Page } from 'playwright-core';
+import { FormPage } from './form-page';
 
-export class UsersPage {
-  constructor(private readonly page: Page, private readonly baseUrl: string) {}
+export class UsersPage extends FormPage {
 
   async open(): Promise<void> {
     await this.page.goto(`${this.baseUrl}/admin/users`);
   }
 
-  private form() {
+  protected form() {
     return this.page.getByRole('form', { name: 'New user' });
   }
 
@@ -20,19 +19,6 @@ export class UsersPage {
     await form.getByLabel('Role').selectOption(values.role);
     await form.getByLabel('First password').fill(values.password);
     await form.getByRole('button', { name: 'Create user' }).click();
-  }
-
-  async fieldError(label: string): Promise<string> {
-    const id = await this.form().getByLabel(label, { exact: true }).getAttribute('id');
-    const error = this.page.locator(`#${id}-error`);
-    await error.waitFor();
-    return (await error.innerText()).replace('▲', '').trim();
-  }
-
-  async statusMessage(): Promise<string> {
-    const status = this.form().locator('[role="status"] [data-part="title"]');
-    await status.waitFor();
-    return (await status.innerText()).trim();
   }
 
   private row(email: string) {
