@@ -3,7 +3,7 @@
 // behind it validates again.
 import { Button } from '@/components/ui/button';
 import { InputField } from '@/components/ui/field';
-import { Notice } from '@/components/ui/notice';
+import { ActionNotice } from '@/components/ui/notice';
 import { useValidatedAction } from '@/components/ui/use-validated-action';
 import type { ActionState } from '@/lib/http/action-state';
 import { customerInputSchema } from '@/lib/validation/customers';
@@ -13,8 +13,7 @@ export function CreateCustomerForm({ action }: { action: (state: ActionState, fo
   return (
     <form ref={formRef} onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-md border-2 border-rule bg-panel p-5" aria-labelledby="new-customer-title">
       <h2 id="new-customer-title">New customer</h2>
-      {state.status === 'ok' ? <Notice tone="go" title={state.message ?? 'Saved.'} role="status" /> : null}
-      {state.status === 'error' ? <Notice tone="stop" title={state.message ?? 'Not saved.'} role="alert" /> : null}
+      <ActionNotice state={state} />
       <InputField id="customer-name" name="name" label="Name" required errors={fields.name} />
       <InputField id="customer-email" name="email" label="E-mail" type="email" required errors={fields.email} />
       <InputField id="customer-phone" name="phone" label="Phone" type="tel" hint="Optional." errors={fields.phone} />

@@ -45,19 +45,23 @@ function describedBy(id: string, hint?: string, errors?: string[]) {
   return ids.length ? ids.join(' ') : undefined;
 }
 
+/** the attributes every control shares: its name, its error state and the texts that describe it */
+function controlProps(id: string, name: string | undefined, hint: string | undefined, errors: string[] | undefined, className: string) {
+  return {
+    id,
+    name: name ?? id,
+    'aria-invalid': errors?.length ? true : undefined,
+    'aria-describedby': describedBy(id, hint, errors),
+    className: `${controlClass} ${className}`,
+  };
+}
+
 type InputFieldProps = Omit<InputHTMLAttributes<HTMLInputElement>, 'id'> & { id: string; label: string; hint?: string; errors?: string[] };
 
 export function InputField({ id, label, hint, errors, className = '', ...props }: InputFieldProps) {
   return (
     <FieldShell id={id} label={label} hint={hint} errors={errors}>
-      <input
-        id={id}
-        name={props.name ?? id}
-        aria-invalid={errors?.length ? true : undefined}
-        aria-describedby={describedBy(id, hint, errors)}
-        className={`${controlClass} ${className}`}
-        {...props}
-      />
+      <input {...controlProps(id, props.name, hint, errors, className)} {...props} />
     </FieldShell>
   );
 }
@@ -73,14 +77,7 @@ type SelectFieldProps = Omit<SelectHTMLAttributes<HTMLSelectElement>, 'id'> & {
 export function SelectField({ id, label, hint, errors, options, className = '', ...props }: SelectFieldProps) {
   return (
     <FieldShell id={id} label={label} hint={hint} errors={errors}>
-      <select
-        id={id}
-        name={props.name ?? id}
-        aria-invalid={errors?.length ? true : undefined}
-        aria-describedby={describedBy(id, hint, errors)}
-        className={`${controlClass} ${className}`}
-        {...props}
-      >
+      <select {...controlProps(id, props.name, hint, errors, className)} {...props}>
         {options.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}

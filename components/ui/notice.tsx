@@ -28,3 +28,10 @@ export function Notice({ tone, title, children, role }: { tone: Tone; title: str
     </div>
   );
 }
+
+/** The outcome of a form's server action, as the form shows it: a status when saved, an alert when not. */
+export function ActionNotice({ state }: { state: { status: string; message?: string } }) {
+  if (state.status === 'ok') return <Notice tone="go" title={state.message ?? 'Saved.'} role="status" />;
+  if (state.status === 'error') return <Notice tone="stop" title={state.message ?? 'Not saved.'} role="alert" />;
+  return null;
+}

@@ -2,7 +2,7 @@
 // The create-user form of the admin page.
 import { Button } from '@/components/ui/button';
 import { InputField, SelectField } from '@/components/ui/field';
-import { Notice } from '@/components/ui/notice';
+import { ActionNotice } from '@/components/ui/notice';
 import { useValidatedAction } from '@/components/ui/use-validated-action';
 import type { ActionState } from '@/lib/http/action-state';
 import { ROLES, ROLE_LABELS } from '@/lib/validation/enums';
@@ -15,8 +15,7 @@ export function CreateUserForm({ action }: { action: Action }) {
   return (
     <form ref={formRef} onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-md border-2 border-rule bg-panel p-5" aria-labelledby="new-user-title">
       <h2 id="new-user-title">New user</h2>
-      {state.status === 'ok' ? <Notice tone="go" title={state.message ?? 'Saved.'} role="status" /> : null}
-      {state.status === 'error' ? <Notice tone="stop" title={state.message ?? 'Not saved.'} role="alert" /> : null}
+      <ActionNotice state={state} />
       <InputField id="user-name" name="name" label="Name" required errors={fields.name} />
       <InputField id="user-email" name="email" label="E-mail" type="email" autoComplete="off" required errors={fields.email} />
       <SelectField id="user-role" name="role" label="Role" defaultValue="operator" errors={fields.role} options={ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }))} />
