@@ -3,6 +3,7 @@
 // band's top, and the rises between two through cuts of one pass (tabs), which are held back
 // until the tool comes down through again and dropped if it leaves the stock first.
 import type { CutGraph } from './cut-graph';
+import { len2 } from './vec';
 
 export class BandCollector {
   private armed = false;
@@ -76,7 +77,7 @@ export class BandCollector {
       this.breakRun();
       return;
     }
-    this.pendingLenMm += Math.hypot(x1 - x0, y1 - y0);
+    this.pendingLenMm += len2(x1 - x0, y1 - y0);
     if (this.pendingLenMm > this.tabMaxLengthMm) {
       this.breakRun();
       return;

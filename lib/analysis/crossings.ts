@@ -4,6 +4,7 @@
 // uniform grid (Amanatides–Woo traversal) and tested pairwise within each cell; a crossing is
 // counted in the cell that holds it, so each pair counts once. Arc edges are tested by chord.
 import type { CutGraph } from './cut-graph';
+import { len2 } from './vec';
 
 export interface Crossing {
   x: number;
@@ -22,8 +23,8 @@ function alongArc(g: CutGraph, a: number, b: number, tol: number): boolean {
   if (r <= 0) return false;
   const band = r * (1 - Math.cos(g.eSweep[a] / 2)) + tol;
   const cx = g.eCx[a], cy = g.eCy[a];
-  const d0 = Math.hypot(g.vx[g.eu[b]] - cx, g.vy[g.eu[b]] - cy);
-  const d1 = Math.hypot(g.vx[g.ev[b]] - cx, g.vy[g.ev[b]] - cy);
+  const d0 = len2(g.vx[g.eu[b]] - cx, g.vy[g.eu[b]] - cy);
+  const d1 = len2(g.vx[g.ev[b]] - cx, g.vy[g.ev[b]] - cy);
   return Math.abs(d0 - r) <= band && Math.abs(d1 - r) <= band;
 }
 
@@ -75,7 +76,7 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
     const ax = vx[eu[e]], ay = vy[eu[e]], bx = vx[ev[e]], by = vy[ev[e]];
     minX = Math.min(minX, ax, bx); maxX = Math.max(maxX, ax, bx);
     minY = Math.min(minY, ay, by); maxY = Math.max(maxY, ay, by);
-    total += Math.hypot(bx - ax, by - ay);
+    total += len2(bx - ax, by - ay);
   }
   // about four cells per edge at most: a sparse nest over a wide area must not walk millions of empty cells
   const cell = Math.max(toleranceMm * 10, (total / E) / 2, Math.max(maxX - minX, maxY - minY) / 4096, Math.sqrt(((maxX - minX) * (maxY - minY)) / (4 * E)));
@@ -117,7 +118,7 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
         const t = ((bx - ax) * bdy - (by - ay) * bdx) / den;
         const u = ((bx - ax) * ady - (by - ay) * adx) / den;
         // proper crossings only: a touch within the tolerance of either end is a shared point
-        const la = Math.hypot(adx, ady), lb = Math.hypot(bdx, bdy);
+        const la = len2(adx, ady), lb = len2(bdx, bdy);
         if (t * la <= toleranceMm || (1 - t) * la <= toleranceMm || u * lb <= toleranceMm || (1 - u) * lb <= toleranceMm) continue;
         const px = ax + adx * t, py = ay + ady * t;
         if (px < cxLo || px >= cxLo + cell || py < cyLo || py >= cyLo + cell) continue;

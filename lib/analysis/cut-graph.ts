@@ -9,6 +9,7 @@
 // stays an arc: it becomes sub-arcs of at most 45° (few edges, exact chords made only for the
 // loops found), and tabs, ramps and helices become straight chords.
 import { KeyTable } from './key-table';
+import { len2 } from './vec';
 
 const KEY_OFFSET = 2 ** 24;
 const KEY_SPAN = 2 ** 25;
@@ -336,7 +337,7 @@ export class CutGraph {
   edgeLengthMm(e: number): number {
     if (this.eR[e] > 0) return this.eR[e] * Math.abs(this.eSweep[e]);
     const u = this.eu[e], v = this.ev[e];
-    return Math.hypot(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
+    return len2(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
   }
 }
 

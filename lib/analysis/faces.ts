@@ -74,50 +74,55 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
   const count = new Int32Array(V);
   const posAtU = new Int32Array(E);
   const posAtV = new Int32Array(E);
-  const angle = new Float64Array(2 * E);
   const vx = g.vx, vy = g.vy;
-  const tmp: number[] = [];
+  // scratch for one vertex's live edges and their angles, sorted by insertion (junctions meet a
+  // handful of edges); no closure per vertex, no array growth
+  let tmp = new Int32Array(16);
+  let ang = new Float64Array(16);
   for (let v = 0; v < V; v++) {
     if (deg[v] < 2) continue;
-    tmp.length = 0;
-    for (let k = start[v]; k < start[v + 1]; k++) if (alive[adj[k]]) tmp.push(adj[k]);
-    const base = start[v];
+    const lo = start[v], hi = start[v + 1];
+    if (hi - lo > tmp.length) { tmp = new Int32Array(2 * (hi - lo)); ang = new Float64Array(2 * (hi - lo)); }
+    let m = 0;
+    for (let k = lo; k < hi; k++) if (alive[adj[k]]) tmp[m++] = adj[k];
     // with two edges either order gives the same walk: only junctions need the angles
-    if (tmp.length > 2) {
-      for (const e of tmp) {
+    if (m > 2) {
+      for (let i = 0; i < m; i++) {
+        const e = tmp[i];
         const w = eu[e] === v ? ev[e] : eu[e];
-        angle[e * 2 + (eu[e] === v ? 0 : 1)] = Math.atan2(vy[w] - vy[v], vx[w] - vx[v]);
+        const a = Math.atan2(vy[w] - vy[v], vx[w] - vx[v]);
+        let j = i;
+        while (j > 0 && ang[j - 1] > a) { ang[j] = ang[j - 1]; tmp[j] = tmp[j - 1]; j--; }
+        ang[j] = a;
+        tmp[j] = e;
       }
-      tmp.sort((a, b) => angle[a * 2 + (eu[a] === v ? 0 : 1)] - angle[b * 2 + (eu[b] === v ? 0 : 1)]);
     }
-    for (let i = 0; i < tmp.length; i++) {
+    for (let i = 0; i < m; i++) {
       const e = tmp[i];
-      order[base + i] = e;
+      order[lo + i] = e;
       if (eu[e] === v) posAtU[e] = i;
       else posAtV[e] = i;
     }
-    count[v] = tmp.length;
+    count[v] = m;
   }
   // walk faces over half-edges: h = 2e (u→v) or 2e+1 (v→u)
   const used = new Uint8Array(2 * E);
   const loops: GraphLoop[] = [];
-  const vs: number[] = [];
-  const es: number[] = [];
+  const vs = new Int32Array(2 * E);
+  const es = new Int32Array(2 * E);
   for (let h0 = 0; h0 < 2 * E; h0++) {
     const e0 = h0 >> 1;
     if (!alive[e0] || used[h0]) continue;
-    vs.length = 0;
-    es.length = 0;
+    let len = 0;
     let h = h0;
     let area2 = 0;
-    let guard = 2 * E + 1;
-    while (!used[h] && guard-- > 0) {
+    while (!used[h] && len < 2 * E) {
       used[h] = 1;
       const e = h >> 1;
       const from = h & 1 ? ev[e] : eu[e];
       const to = h & 1 ? eu[e] : ev[e];
-      vs.push(from);
-      es.push(e);
+      vs[len] = from;
+      es[len++] = e;
       area2 += vx[from] * vy[to] - vx[to] * vy[from];
       // at `to`, the edge we came in on sits at pos; take the next one clockwise
       const pos = eu[e] === to ? posAtU[e] : posAtV[e];
@@ -126,7 +131,7 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
       h = next * 2 + (eu[next] === to ? 0 : 1);
     }
     if (h !== h0 || area2 <= 1e-9) continue;
-    loops.push({ verts: Int32Array.from(vs), edges: Int32Array.from(es) });
+    loops.push({ verts: vs.slice(0, len), edges: es.slice(0, len) });
   }
   return loops;
 }

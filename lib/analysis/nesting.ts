@@ -2,14 +2,16 @@
 // a loop inside nothing, or inside a hole, bounds a part; a loop inside a part is a hole.
 // Two loops so close that the kerf leaves no material between them (a finishing pass beside
 // a roughing pass) are one cut and are merged.
-import { nearPath, pathAreaMm2, pathPerimeterMm, pointInPath, toPath, type Path } from './geometry';
+import { nearRing, pointInRing, reverseRing, ringAreaMm2, ringPerimeterMm, ringToPath, SCALE, toRing, type Path, type Ring } from './geometry';
 import { AREA_CHORD_MM, type LoopInfo } from './loops';
 import type { BBox } from './types';
 
 export interface LoopNode {
   info: LoopInfo;
-  /** tool-centre path, counter-clockwise */
-  path: Path;
+  /** tool-centre loop on Clipper's integer grid, counter-clockwise */
+  ring: Ring;
+  /** the same loop as a Clipper path, made when first read (for offsets) */
+  readonly path: Path;
   areaMm2: number;
   perimeterMm: number;
   bbox: BBox;
@@ -22,23 +24,7 @@ export interface LoopNode {
 }
 
 export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number, toleranceMm: number): LoopNode[] {
-  const all: LoopNode[] = infos.map((info) => {
-    const path = toPath(info.xs, info.ys);
-    let area = pathAreaMm2(path);
-    if (area < 0) {
-      path.reverse();
-      area = -area;
-    }
-    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-    for (let i = 0; i < info.xs.length; i++) {
-      const px = info.xs[i], py = info.ys[i];
-      if (px < minX) minX = px;
-      if (px > maxX) maxX = px;
-      if (py < minY) minY = py;
-      if (py > maxY) maxY = py;
-    }
-    return { info, path, areaMm2: area, perimeterMm: pathPerimeterMm(path), bbox: { minX, minY, maxX, maxY }, radiusMm: radiusOf(info.tool), depth: 0, parent: -1, children: [] };
-  });
+  const all: LoopNode[] = infos.map((info) => loopNode(info, radiusOf(info.tool)));
   all.sort((a, b) => b.areaMm2 - a.areaMm2);
   // a uniform grid of the kept loops' boxes: a loop's container must cover the cell of its first point
   let gx0 = Infinity, gy0 = Infinity, gx1 = -Infinity, gy1 = -Infinity;
@@ -55,7 +41,7 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
   for (let i = 0; i < all.length; i++) {
     const node = all[i];
     let parent = -1;
-    const list = cells[row(node.info.ys[0]) * side + col(node.info.xs[0])];
+    const list = cells[row(node.ring.y[0] / SCALE) * side + col(node.ring.x[0] / SCALE)];
     for (let j = list.length - 1; j >= 0; j--) {
       if (contains(kept[list[j]], node, toleranceMm)) {
         parent = list[j];
@@ -86,15 +72,42 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
 function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
   const a = outer.bbox, b = inner.bbox;
   if (b.minX < a.minX - tol || b.maxX > a.maxX + tol || b.minY < a.minY - tol || b.maxY > a.maxY + tol) return false;
-  const xs = inner.info.xs, ys = inner.info.ys;
+  const xs = inner.ring.x, ys = inner.ring.y;
   const n = xs.length;
   const step = Math.max(1, Math.floor(n / 5));
   for (let k = 0; k < n; k += step) {
-    const r = pointInPath(xs[k], ys[k], outer.path);
+    const r = pointInRing(xs[k], ys[k], outer.ring);
     // both loops are drawn within AREA_CHORD_MM of their true curves: closer than that is the same line
-    if (r === 1 || (r === 0 && !nearPath(xs[k], ys[k], outer.path, AREA_CHORD_MM + tol))) return r === 1;
+    if (r === 1 || (r === 0 && !nearRing(xs[k], ys[k], outer.ring, AREA_CHORD_MM + tol))) return r === 1;
   }
   return true;
+}
+
+/** the node of one loop: its ring counter-clockwise, area, perimeter and box, not yet nested */
+export function loopNode(info: LoopInfo, radiusMm: number): LoopNode {
+  const ring = toRing(info.xs, info.ys);
+  let area = ringAreaMm2(ring);
+  if (area < 0) {
+    reverseRing(ring);
+    area = -area;
+  }
+  const { x, y } = ring;
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (let i = 0; i < x.length; i++) {
+    const px = x[i], py = y[i];
+    if (px < minX) minX = px;
+    if (px > maxX) maxX = px;
+    if (py < minY) minY = py;
+    if (py > maxY) maxY = py;
+  }
+  let path: Path | null = null;
+  return {
+    info, ring,
+    get path() { return (path ??= ringToPath(ring)); },
+    areaMm2: area, perimeterMm: ringPerimeterMm(ring),
+    bbox: { minX: minX / SCALE, minY: minY / SCALE, maxX: maxX / SCALE, maxY: maxY / SCALE },
+    radiusMm, depth: 0, parent: -1, children: [],
+  };
 }
 
 /** the merged cut frees the part as soon as either loop is through all round */

@@ -6,7 +6,7 @@
 // (shape-cache); a slug's exact area is worked out only when its verdict or its finding's
 // text needs it, from the bounds A − r·P ≤ slug ≤ A of the hole's interior A and perimeter P.
 import { FindingSink, fmt } from './findings';
-import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, SCALE, type Path, type Paths } from './geometry';
+import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, SCALE, type Paths, type Ring } from './geometry';
 import { freedPieceHeld, freedPieceHold } from './hold';
 import type { LoopNode } from './nesting';
 import { lowest, ShapeCache, shapeKey, translatePath } from './shape-cache';
@@ -65,11 +65,11 @@ export class PartShapes {
   readonly slugs = new ShapeCache<number>();
 
   part(node: LoopNode, holeNodes: LoopNode[]): PlacedShape {
-    const paths: Path[] = [node.path];
+    const rings: Ring[] = [node.ring];
     const radii = [node.radiusMm];
     const starts = [startOf(node)];
-    for (const h of holeNodes) { paths.push(h.path); radii.push(h.radiusMm); starts.push(startOf(h)); }
-    const k = shapeKey(paths, radii, starts);
+    for (const h of holeNodes) { rings.push(h.ring); radii.push(h.radiusMm); starts.push(startOf(h)); }
+    const k = shapeKey(rings, radii, starts);
     const rel = this.parts.get(k, () => {
       const s = partShape(node, holeNodes);
       const outline = s.outline.map((p) => translatePath(p, -k.ox, -k.oy));
@@ -87,14 +87,14 @@ export class PartShapes {
 
   slug(hole: LoopNode, nodes: LoopNode[]): number {
     const kids = hole.children.map((c) => nodes[c]);
-    const k = shapeKey([hole.path, ...kids.map((c) => c.path)], [hole.radiusMm, ...kids.map((c) => c.radiusMm)], [startOf(hole), ...kids.map(startOf)]);
+    const k = shapeKey([hole.ring, ...kids.map((c) => c.ring)], [hole.radiusMm, ...kids.map((c) => c.radiusMm)], [startOf(hole), ...kids.map(startOf)]);
     return this.slugs.get(k, () => slugOf(hole, nodes));
   }
 }
 
 /** a loop's path takes part in several keys (its part's, its parent's, a slug's): its start is found once */
 function startOf(node: LoopNode): number {
-  return (node.lowestIndex ??= lowest(node.path));
+  return (node.lowestIndex ??= lowest(node.ring));
 }
 
 export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSink, shapes = new PartShapes()): { parts: BuiltPart[]; holes: number; looseSlugs: number } {

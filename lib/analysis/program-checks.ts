@@ -8,6 +8,7 @@ import type { MachineLimits, PlungePoint, SheetSpec } from './types';
 
 const EPS = 1e-6;
 
+
 export interface CheckContext {
   sheet: SheetSpec | null;
   /** Z of the stock top, null when unknown */
@@ -48,11 +49,21 @@ export class ProgramChecks {
   }
 
   /**
-   * one motion move: kind 0 rapid, 1 feed, 2 arc; (bx0..by1) is its XY extent, zLo its lowest Z;
-   * drilling is true for the legs of a canned cycle, which plunge straight by design
+   * The coordinates of the move being checked, written by the caller before motion(): the
+   * start x0 y0 z0 (0–2), the end x1 y1 z1 (3–5), the XY extent minX minY maxX maxY (6–9), the
+   * lowest Z (10) and the feed in mm/min (11). Numbers go through this array rather than as arguments, which a call
+   * that is not inlined would box one by one on every move.
    */
-  motion(line: number, kind: number, x0: number, y0: number, z0: number, x1: number, y1: number, z1: number,
-    bx0: number, by0: number, bx1: number, by1: number, zLo: number, spindleOn: boolean, feedMmPerMin: number, tool: number, drilling = false): void {
+  readonly m = new Float64Array(12);
+
+  /**
+   * one motion move (its numbers in `m`): kind 0 rapid, 1 feed, 2 arc; drilling is true for the
+   * legs of a canned cycle, which plunge straight by design
+   */
+  motion(line: number, kind: number, spindleOn: boolean, tool: number, drilling: boolean): void {
+    const m = this.m;
+    const x0 = m[0], y0 = m[1], z0 = m[2], x1 = m[3], y1 = m[4], z1 = m[5];
+    const bx0 = m[6], by0 = m[7], bx1 = m[8], by1 = m[9], zLo = m[10], feedMmPerMin = m[11];
     const c = this.c;
     const tol = c.toleranceMm;
     const top = c.topZ;
@@ -65,15 +76,13 @@ export class ProgramChecks {
       // rapid in stock
       const bad = kind === 0 && movesXY && inStockZ && overSheet;
       if (bad && !this.rapidRun) {
-        this.sink.add('rapid-in-stock', 'error', line,
-          () => `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
+        rapidInStock(this.sink, line, zLo, top);
       }
       this.rapidRun = bad;
       // spindle off while feeding in stock
       const dry = kind !== 0 && inStockZ && overSheet && !spindleOn;
       if (dry && !this.spindleRun) {
-        this.sink.add('spindle-off', 'error', line,
-          () => `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
+        spindleOff(this.sink, line, zLo, top);
       }
       this.spindleRun = dry;
       // entering the stock: plunge points and straight plunges
@@ -85,8 +94,7 @@ export class ProgramChecks {
         const d = this.diameterOf(tool);
         if (!this.plungeReported && d > 0 && this.plungeDepthMm > d + tol) {
           this.plungeReported = true;
-          this.sink.add('straight-plunge', 'info', line,
-            () => `Straight plunge at line ${line}: ${fmt(this.plungeDepthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
+          straightPlunge(this.sink, line, this.plungeDepthMm, d, tool);
         }
       } else if (kind !== 1 || movesXY || z1 > z0 + EPS) {
         this.plungeDepthMm = 0;
@@ -100,8 +108,7 @@ export class ProgramChecks {
       const m = r + tol;
       const outside = inStockZ && (bx0 < -m || by0 < -m || bx1 > sheet.widthMm + m || by1 > sheet.lengthMm + m);
       if (outside && !this.sheetRun) {
-        this.sink.add('outside-sheet', 'warning', line,
-          () => `Feed move at line ${line} reaches X ${fmt(bx0 < -m ? bx0 : bx1, 2)}, Y ${fmt(by0 < -m ? by0 : by1, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
+        outsideSheet(this.sink, line, bx0 < -m ? bx0 : bx1, by0 < -m ? by0 : by1, sheet);
       }
       this.sheetRun = outside;
     }
@@ -110,8 +117,7 @@ export class ProgramChecks {
     if (bottomZ !== null) {
       const deep = zLo < bottomZ - c.spoilboardAllowanceMm - tol;
       if (deep && !this.spoilRun) {
-        this.sink.add('spoilboard-depth', 'warning', line,
-          () => `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(c.spoilboardAllowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
+        spoilboardDepth(this.sink, line, zLo, bottomZ, c.spoilboardAllowanceMm);
       }
       this.spoilRun = deep;
     }
@@ -123,8 +129,7 @@ export class ProgramChecks {
         const out = bx0 + off.x < -tol || bx1 + off.x > mach.travel.x + tol || by0 + off.y < -tol || by1 + off.y > mach.travel.y + tol ||
           zLo + off.z < -mach.travel.z - tol || Math.max(z0, z1) + off.z > tol;
         if (out && !this.travelRun) {
-          this.sink.add('outside-travel', 'error', line,
-            () => `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
+          outsideTravel(this.sink, line, mach);
         }
         this.travelRun = out;
       } else {
@@ -155,8 +160,7 @@ export class ProgramChecks {
         }
         const clamped = feedMmPerMin > limit * (1 + 1e-6);
         if (clamped && this.feedRunValue !== feedMmPerMin) {
-          this.sink.add('feed-clamped', 'info', line,
-            () => `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
+          feedClamped(this.sink, line, feedMmPerMin, limit);
         }
         this.feedRunValue = clamped ? feedMmPerMin : -1;
       }
@@ -170,4 +174,43 @@ export class ProgramChecks {
         () => `The program spans ${fmt(this.maxX - this.minX, 0)} × ${fmt(this.maxY - this.minY, 0)} × ${fmt(this.maxZ - this.minZ, 0)} mm, more than the machine's travel of ${fmt(mach.travel.x, 0)} × ${fmt(mach.travel.y, 0)} × ${fmt(mach.travel.z, 0)} mm (first exceeded at line ${this.travelLine}): it cannot run wherever the work offset is set.`);
     }
   }
+}
+
+// The wording of each finding, in functions of their own: a closure inside motion() would make
+// V8 allocate a context for its captured values on every call, found or not.
+
+function rapidInStock(sink: FindingSink, line: number, zLo: number, top: number): void {
+  sink.add('rapid-in-stock', 'error', line,
+    () => `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
+}
+
+function spindleOff(sink: FindingSink, line: number, zLo: number, top: number): void {
+  sink.add('spindle-off', 'error', line,
+    () => `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
+}
+
+function straightPlunge(sink: FindingSink, line: number, depthMm: number, d: number, tool: number): void {
+  sink.add('straight-plunge', 'info', line,
+    () => `Straight plunge at line ${line}: ${fmt(depthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
+}
+
+function outsideSheet(sink: FindingSink, line: number, x: number, y: number, sheet: SheetSpec): void {
+  sink.add('outside-sheet', 'warning', line,
+    () => `Feed move at line ${line} reaches X ${fmt(x, 2)}, Y ${fmt(y, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
+}
+
+function spoilboardDepth(sink: FindingSink, line: number, zLo: number, bottomZ: number, allowanceMm: number): void {
+  sink.add('spoilboard-depth', 'warning', line,
+    () => `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(allowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
+}
+
+function outsideTravel(sink: FindingSink, line: number, mach: MachineLimits): void {
+  const off = mach.workOffset!;
+  sink.add('outside-travel', 'error', line,
+    () => `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
+}
+
+function feedClamped(sink: FindingSink, line: number, feedMmPerMin: number, limit: number): void {
+  sink.add('feed-clamped', 'info', line,
+    () => `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
 }

@@ -53,6 +53,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
   const bandTop = levels.bandTopZ ?? -Infinity;
   const chords = new ArcChords();
   const ext = new Float64Array(4);
+  const m = checks.m;
   const toolFirstLine = new Map<number, number>();
   const firstThroughByTool = new Map<number, number>();
   let lastTool = -1;
@@ -122,7 +123,9 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
         }
       }
     }
-    checks.motion(line[i], k, px, py, pz, x1, y1, z1, bx0, by0, bx1, by1, zLo, spindleOn, feed[i], t, (flags[i] & MoveFlag.cannedCycle) !== 0);
+    m[0] = px; m[1] = py; m[2] = pz; m[3] = x1; m[4] = y1; m[5] = z1;
+    m[6] = bx0; m[7] = by0; m[8] = bx1; m[9] = by1; m[10] = zLo; m[11] = feed[i];
+    checks.motion(line[i], k, spindleOn, t, (flags[i] & MoveFlag.cannedCycle) !== 0);
     px = x1; py = y1; pz = z1;
   }
   checks.finish();

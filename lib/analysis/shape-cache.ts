@@ -5,7 +5,7 @@
 // hashed, and a hit is compared in full, so a hit is always the same shape (Clipper's answer
 // for it at the new place could differ only in its 1 µm rounding); a copy whose vertices round
 // differently only misses and is computed afresh.
-import type { Path } from './geometry';
+import type { Path, Ring } from './geometry';
 
 export interface ShapeKey {
   hash: number;
@@ -16,37 +16,37 @@ export interface ShapeKey {
   oy: number;
 }
 
-/** index of the path's lowest-leftmost vertex, where its key starts */
-export function lowest(path: Path): number {
+/** index of the ring's lowest-leftmost vertex, where its key starts */
+export function lowest(ring: Ring): number {
+  const { x, y } = ring;
   let s = 0;
-  for (let i = 1; i < path.length; i++) {
-    const p = path[i], q = path[s];
-    if (p.Y < q.Y || (p.Y === q.Y && p.X < q.X)) s = i;
+  for (let i = 1; i < x.length; i++) {
+    if (y[i] < y[s] || (y[i] === y[s] && x[i] < x[s])) s = i;
   }
   return s;
 }
 
 /**
- * translation-invariant key of `paths` (the first one sets the origin) and the numbers in
- * `extra`; `starts` may give each path's lowest() when the caller keeps it
+ * translation-invariant key of `rings` (the first one sets the origin) and the numbers in
+ * `extra`; `starts` may give each ring's lowest() when the caller keeps it
  */
-export function shapeKey(paths: Path[], extra: number[], starts?: number[]): ShapeKey {
-  const s0 = starts ? starts[0] : lowest(paths[0]);
-  const ox = paths[0][s0].X, oy = paths[0][s0].Y;
+export function shapeKey(rings: Ring[], extra: number[], starts?: number[]): ShapeKey {
+  const s0 = starts ? starts[0] : lowest(rings[0]);
+  const ox = rings[0].x[s0], oy = rings[0].y[s0];
   let size = extra.length;
-  for (const p of paths) size += 1 + 2 * p.length;
+  for (const r of rings) size += 1 + 2 * r.x.length;
   const data = new Float64Array(size);
   let o = 0;
   for (const v of extra) data[o++] = v;
   let h = 0x811c9dc5 ^ size;
-  for (let k = 0; k < paths.length; k++) {
-    // each path starts at its own lowest vertex, so where a loop was entered does not matter
-    const path = paths[k];
-    const n = path.length, start = k === 0 ? s0 : starts ? starts[k] : lowest(path);
+  for (let k = 0; k < rings.length; k++) {
+    // each ring starts at its own lowest vertex, so where a loop was entered does not matter
+    const ring = rings[k];
+    const xs = ring.x, ys = ring.y;
+    const n = xs.length, start = k === 0 ? s0 : starts ? starts[k] : lowest(ring);
     data[o++] = n;
     for (let j = start, c = 0; c < n; c++, j = j + 1 === n ? 0 : j + 1) {
-      const p = path[j];
-      const dx = p.X - ox, dy = p.Y - oy;
+      const dx = xs[j] - ox, dy = ys[j] - oy;
       data[o] = dx;
       data[o + 1] = dy;
       o += 2;

@@ -2,9 +2,9 @@
 // perimeters and outlines as the uncached Clipper path for translated copies of a part, and the
 // area-preserving arc flattening (areaRadius) encloses exactly the sector's area r²θ/2.
 import { describe, expect, it } from 'vitest';
-import { pathsAreaMm2, pathsBBox, toPath } from '@/lib/analysis/geometry';
+import { pathsAreaMm2, pathsBBox } from '@/lib/analysis/geometry';
 import { areaRadius, type LoopInfo } from '@/lib/analysis/loops';
-import type { LoopNode } from '@/lib/analysis/nesting';
+import { loopNode, type LoopNode } from '@/lib/analysis/nesting';
 import { PartShapes, partShape } from '@/lib/analysis/parts';
 import { lowest, shapeKey } from '@/lib/analysis/shape-cache';
 
@@ -33,8 +33,7 @@ function circlePts(cx: number, cy: number, r: number, n = 40): { xs: number[]; y
 
 function node(pts: { xs: number[]; ys: number[] }, radiusMm: number): LoopNode {
   const info = { xs: Float64Array.from(pts.xs), ys: Float64Array.from(pts.ys) } as unknown as LoopInfo;
-  const path = toPath(pts.xs, pts.ys);
-  return { info, path, areaMm2: pathsAreaMm2([path]), perimeterMm: 0, bbox: pathsBBox([path])!, radiusMm, depth: 0, parent: -1, children: [] };
+  return loopNode(info, radiusMm);
 }
 
 describe('shape cache', () => {
@@ -57,24 +56,25 @@ describe('shape cache', () => {
     expect(shapes.parts.misses).toBeGreaterThanOrEqual(1);
   });
 
-  it('given each path\'s lowest vertex, the key is the one it works out itself; a loop entered elsewhere keys the same', () => {
+  it('given each ring\'s lowest vertex, the key is the one it works out itself; a loop entered elsewhere keys the same', () => {
     const outer = node(roundedRect(5, 7, 90, 60, 6), 3);
     const hole = node(circlePts(40, 30, 8), 3);
-    const a = shapeKey([outer.path, hole.path], [3, 3]);
-    const b = shapeKey([outer.path, hole.path], [3, 3], [lowest(outer.path), lowest(hole.path)]);
+    const a = shapeKey([outer.ring, hole.ring], [3, 3]);
+    const b = shapeKey([outer.ring, hole.ring], [3, 3], [lowest(outer.ring), lowest(hole.ring)]);
     expect(b.hash).toBe(a.hash);
     expect(Array.from(b.data)).toEqual(Array.from(a.data));
     // the same outline started at another vertex (rotation of the point list)
-    const rotated = [...outer.path.slice(11), ...outer.path.slice(0, 11)];
-    const c = shapeKey([rotated, hole.path], [3, 3], [lowest(rotated), lowest(hole.path)]);
+    const rot = (a: Float64Array) => Float64Array.from([...a.slice(11), ...a.slice(0, 11)]);
+    const rotated = { x: rot(outer.ring.x), y: rot(outer.ring.y) };
+    const c = shapeKey([rotated, hole.ring], [3, 3], [lowest(rotated), lowest(hole.ring)]);
     expect(Array.from(c.data)).toEqual(Array.from(a.data));
   });
 
   it('a different hole radius or tool radius is a different key', () => {
     const outer = node(roundedRect(0, 0, 100, 80, 5), 3);
-    const a = shapeKey([outer.path, node(circlePts(50, 40, 10), 3).path], [3, 3]);
-    const b = shapeKey([outer.path, node(circlePts(50, 40, 10.01), 3).path], [3, 3]);
-    const c = shapeKey([outer.path, node(circlePts(50, 40, 10), 3).path], [3, 3.175]);
+    const a = shapeKey([outer.ring, node(circlePts(50, 40, 10), 3).ring], [3, 3]);
+    const b = shapeKey([outer.ring, node(circlePts(50, 40, 10.01), 3).ring], [3, 3]);
+    const c = shapeKey([outer.ring, node(circlePts(50, 40, 10), 3).ring], [3, 3.175]);
     expect(a.hash === b.hash && a.data.every((v, i) => v === b.data[i])).toBe(false);
     expect(a.hash === c.hash && a.data.every((v, i) => v === c.data[i])).toBe(false);
   });
