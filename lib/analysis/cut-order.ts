@@ -30,9 +30,11 @@ export function checkCutOrder(moves: MoveList, parts: BuiltPart[], stockTopZ: nu
   const lastLine = new Int32Array(freed.length).fill(-1);
   const { x, y, z, kind, line } = moves;
   const limitZ = stockTopZ - toleranceMm;
+  // local copies: an imported enum is read through an accessor on every use
+  const FEED = MoveKind.feed, ARC = MoveKind.arc;
   for (let i = firstMove + 1; i < moves.count; i++) {
     const k = kind[i];
-    if (k !== MoveKind.feed && k !== MoveKind.arc) continue;
+    if (k !== FEED && k !== ARC) continue;
     const px = x[i], py = y[i];
     if (z[i] >= limitZ || px < minX || px > maxX || py < minY || py > maxY) continue;
     const list = cells[cellOf(py, minY, ch) * side + cellOf(px, minX, cw)];

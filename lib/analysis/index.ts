@@ -10,6 +10,7 @@ import { findCrossings } from './crossings';
 import { checkCutOrder } from './cut-order';
 import { extractLoops, prune } from './faces';
 import { FindingSink, fmt } from './findings';
+import { LoopShapes } from './loop-shapes';
 import { describeLoop } from './loops';
 import { nestLoops } from './nesting';
 import { buildParts } from './parts';
@@ -70,9 +71,10 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
       sink.add('crossing-cuts', 'warning', Math.max(la, lb),
         `Through cuts cross at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)} (lines ${Math.min(la, lb)} and ${Math.max(la, lb)}): two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
     }
+    const shapes = new LoopShapes();
     const loops = extractLoops(g, pruned)
       .filter((l) => !touchesCrossing(l.edges, crossed))
-      .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm));
+      .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm, shapes));
     const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
     const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
     holes = built.holes;

@@ -1,16 +1,19 @@
-// Nests the closed loops by containment (Clipper's point-in-polygon on the tool-centre paths):
+// Nests the closed loops by containment (point in polygon on the tool-centre rings):
 // a loop inside nothing, or inside a hole, bounds a part; a loop inside a part is a hole.
 // Two loops so close that the kerf leaves no material between them (a finishing pass beside
 // a roughing pass) are one cut and are merged.
-import { nearRing, pointInRing, reverseRing, ringAreaMm2, ringPerimeterMm, ringToPath, SCALE, toRing, type Path, type Ring } from './geometry';
+import { nearRing, pointInRing, SCALE, type Path } from './geometry';
+import type { LoopShape } from './loop-shapes';
 import { AREA_CHORD_MM, type LoopInfo } from './loops';
 import type { BBox } from './types';
 
 export interface LoopNode {
   info: LoopInfo;
-  /** tool-centre loop on Clipper's integer grid, counter-clockwise */
-  ring: Ring;
-  /** the same loop as a Clipper path, made when first read (for offsets) */
+  /** the tool-centre loop's outline (shared by congruent copies) and its origin on the grid */
+  shape: LoopShape;
+  ox: number;
+  oy: number;
+  /** the loop at its place as a Clipper path, made when first read (for offsets) */
   readonly path: Path;
   areaMm2: number;
   perimeterMm: number;
@@ -19,12 +22,10 @@ export interface LoopNode {
   depth: number;
   parent: number;
   children: number[];
-  /** lowest() of the path, kept once worked out (shape-cache keys) */
-  lowestIndex?: number;
 }
 
 export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number, toleranceMm: number): LoopNode[] {
-  const all: LoopNode[] = infos.map((info) => loopNode(info, radiusOf(info.tool)));
+  const all: LoopNode[] = infos.map((info) => loopNode(info, info.shape, info.ox, info.oy, radiusOf(info.tool)));
   all.sort((a, b) => b.areaMm2 - a.areaMm2);
   // a uniform grid of the kept loops' boxes: a loop's container must cover the cell of its first point
   let gx0 = Infinity, gy0 = Infinity, gx1 = -Infinity, gy1 = -Infinity;
@@ -41,7 +42,7 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
   for (let i = 0; i < all.length; i++) {
     const node = all[i];
     let parent = -1;
-    const list = cells[row(node.ring.y[0] / SCALE) * side + col(node.ring.x[0] / SCALE)];
+    const list = cells[row(node.oy / SCALE) * side + col(node.ox / SCALE)];
     for (let j = list.length - 1; j >= 0; j--) {
       if (contains(kept[list[j]], node, toleranceMm)) {
         parent = list[j];
@@ -72,40 +73,36 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
 function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
   const a = outer.bbox, b = inner.bbox;
   if (b.minX < a.minX - tol || b.maxX > a.maxX + tol || b.minY < a.minY - tol || b.maxY > a.maxY + tol) return false;
-  const xs = inner.ring.x, ys = inner.ring.y;
+  // inner's points, moved into outer's frame (whole grid units: the test is exact either way)
+  const xs = inner.shape.ring.x, ys = inner.shape.ring.y;
+  const dx = inner.ox - outer.ox, dy = inner.oy - outer.oy;
+  const ring = outer.shape.ring;
   const n = xs.length;
   const step = Math.max(1, Math.floor(n / 5));
   for (let k = 0; k < n; k += step) {
-    const r = pointInRing(xs[k], ys[k], outer.ring);
+    const px = xs[k] + dx, py = ys[k] + dy;
+    const r = pointInRing(px, py, ring);
     // both loops are drawn within AREA_CHORD_MM of their true curves: closer than that is the same line
-    if (r === 1 || (r === 0 && !nearRing(xs[k], ys[k], outer.ring, AREA_CHORD_MM + tol))) return r === 1;
+    if (r === 1 || (r === 0 && !nearRing(px, py, ring, AREA_CHORD_MM + tol))) return r === 1;
   }
   return true;
 }
 
-/** the node of one loop: its ring counter-clockwise, area, perimeter and box, not yet nested */
-export function loopNode(info: LoopInfo, radiusMm: number): LoopNode {
-  const ring = toRing(info.xs, info.ys);
-  let area = ringAreaMm2(ring);
-  if (area < 0) {
-    reverseRing(ring);
-    area = -area;
-  }
-  const { x, y } = ring;
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (let i = 0; i < x.length; i++) {
-    const px = x[i], py = y[i];
-    if (px < minX) minX = px;
-    if (px > maxX) maxX = px;
-    if (py < minY) minY = py;
-    if (py > maxY) maxY = py;
-  }
+/** the node of one placed loop, not yet nested */
+export function loopNode(info: LoopInfo, shape: LoopShape, ox: number, oy: number, radiusMm: number): LoopNode {
   let path: Path | null = null;
+  const box = shape.box;
   return {
-    info, ring,
-    get path() { return (path ??= ringToPath(ring)); },
-    areaMm2: area, perimeterMm: ringPerimeterMm(ring),
-    bbox: { minX: minX / SCALE, minY: minY / SCALE, maxX: maxX / SCALE, maxY: maxY / SCALE },
+    info, shape, ox, oy,
+    get path() {
+      if (path) return path;
+      const { x, y } = shape.ring;
+      path = new Array(x.length);
+      for (let i = 0; i < x.length; i++) path[i] = { X: x[i] + ox, Y: y[i] + oy };
+      return path;
+    },
+    areaMm2: shape.areaMm2, perimeterMm: shape.perimeterMm,
+    bbox: { minX: (box[0] + ox) / SCALE, minY: (box[1] + oy) / SCALE, maxX: (box[2] + ox) / SCALE, maxY: (box[3] + oy) / SCALE },
     radiusMm, depth: 0, parent: -1, children: [],
   };
 }

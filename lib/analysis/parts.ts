@@ -6,10 +6,11 @@
 // (shape-cache); a slug's exact area is worked out only when its verdict or its finding's
 // text needs it, from the bounds A − r·P ≤ slug ≤ A of the hole's interior A and perimeter P.
 import { FindingSink, fmt } from './findings';
-import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, SCALE, type Paths, type Ring } from './geometry';
+import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, SCALE, type Paths } from './geometry';
 import { freedPieceHeld, freedPieceHold } from './hold';
 import type { LoopNode } from './nesting';
-import { lowest, ShapeCache, shapeKey, translatePath } from './shape-cache';
+import type { LoopShape } from './loop-shapes';
+import { hashNumbers, ShapeCache, translatePath, type ShapeKey } from './shape-cache';
 import type { AnalysisSettings } from './settings';
 import type { AnalysisPart, BBox, HoldDownMethod } from './types';
 
@@ -42,9 +43,31 @@ interface PartShape {
   bbox: BBox | null;
 }
 
-/** a part shape at its place: the outline paths are only made if asked for (the cut-order check) */
-export interface PlacedShape extends Omit<PartShape, 'outline'> {
-  outline(): Paths;
+type RelShape = PartShape & { box: number[] | null };
+
+/**
+ * a part shape at its place: the outline paths are only made if asked for (the cut-order
+ * check). A class, not an object with closures: thousands are made per program.
+ */
+export class PlacedShape {
+  private paths: Paths | null = null;
+  readonly bbox: BBox | null;
+
+  constructor(private readonly rel: RelShape, private readonly ox: number, private readonly oy: number) {
+    const b = rel.box;
+    this.bbox = b && { minX: (b[0] + ox) / SCALE, minY: (b[1] + oy) / SCALE, maxX: (b[2] + ox) / SCALE, maxY: (b[3] + oy) / SCALE };
+  }
+
+  get outlineAreas(): number[] { return this.rel.outlineAreas; }
+  get areaMm2(): number { return this.rel.areaMm2; }
+  get perimeterMm(): number { return this.rel.perimeterMm; }
+
+  outline(): Paths {
+    if (this.paths) return this.paths;
+    const out: Paths = [];
+    for (const p of this.rel.outline) out.push(translatePath(p, this.ox, this.oy));
+    return (this.paths = out);
+  }
 }
 
 /** the finished part of a loop and its holes: outline shrunk by the radius, grown holes taken off */
@@ -59,58 +82,103 @@ export function partShape(node: LoopNode, holeNodes: LoopNode[]): PartShape {
   return { outline, outlineAreas, areaMm2, perimeterMm, bbox: pathsBBox(outline) };
 }
 
-/** partShape through the cache: the same loop and holes moved elsewhere give the same shape, moved */
+/**
+ * partShape through the cache: the same loop and holes moved elsewhere give the same shape,
+ * moved. The key is the part's outline shape and tool radius, then each hole's shape, offset
+ * from the part's origin and radius (holes in a fixed order), so a copy is found from a few
+ * numbers; the shapes themselves were matched point for point when the loops were placed.
+ */
 export class PartShapes {
-  readonly parts = new ShapeCache<PartShape & { box: number[] | null }>();
+  readonly parts = new ShapeCache<RelShape>();
   readonly slugs = new ShapeCache<number>();
+  private readonly ids = new Map<LoopShape, number>();
+
+  private idOf(shape: LoopShape): number {
+    let id = this.ids.get(shape);
+    if (id === undefined) {
+      id = this.ids.size;
+      this.ids.set(shape, id);
+    }
+    return id;
+  }
+
+  /** the key of a loop with the loops inside it, relative to the first one's origin */
+  private key(outer: LoopNode, inner: LoopNode[]): ShapeKey {
+    const data = new Float64Array(3 + 4 * inner.length);
+    data[0] = this.idOf(outer.shape);
+    data[1] = outer.radiusMm;
+    data[2] = inner.length;
+    const order = inner.length < 2 ? inner : inner.slice().sort((a, b) => a.ox - b.ox || a.oy - b.oy || this.idOf(a.shape) - this.idOf(b.shape));
+    let o = 3;
+    for (const h of order) {
+      data[o++] = this.idOf(h.shape);
+      data[o++] = h.ox - outer.ox;
+      data[o++] = h.oy - outer.oy;
+      data[o++] = h.radiusMm;
+    }
+    return { hash: hashNumbers(data), data, ox: outer.ox, oy: outer.oy };
+  }
 
   part(node: LoopNode, holeNodes: LoopNode[]): PlacedShape {
-    const rings: Ring[] = [node.ring];
-    const radii = [node.radiusMm];
-    const starts = [startOf(node)];
-    for (const h of holeNodes) { rings.push(h.ring); radii.push(h.radiusMm); starts.push(startOf(h)); }
-    const k = shapeKey(rings, radii, starts);
-    const rel = this.parts.get(k, () => {
+    const k = this.key(node, holeNodes);
+    let rel = this.parts.find(k);
+    if (!rel) {
       const s = partShape(node, holeNodes);
       const outline = s.outline.map((p) => translatePath(p, -k.ox, -k.oy));
-      return { ...s, outline, box: intBox(outline) };
-    });
-    let outline: Paths | null = null;
-    return {
-      outlineAreas: rel.outlineAreas,
-      areaMm2: rel.areaMm2,
-      perimeterMm: rel.perimeterMm,
-      bbox: rel.box && { minX: (rel.box[0] + k.ox) / SCALE, minY: (rel.box[1] + k.oy) / SCALE, maxX: (rel.box[2] + k.ox) / SCALE, maxY: (rel.box[3] + k.oy) / SCALE },
-      outline: () => (outline ??= rel.outline.map((p) => translatePath(p, k.ox, k.oy))),
-    };
+      rel = this.parts.put(k, { ...s, outline, box: intBox(outline) });
+    }
+    return new PlacedShape(rel, k.ox, k.oy);
   }
 
   slug(hole: LoopNode, nodes: LoopNode[]): number {
-    const kids = hole.children.map((c) => nodes[c]);
-    const k = shapeKey([hole.ring, ...kids.map((c) => c.ring)], [hole.radiusMm, ...kids.map((c) => c.radiusMm)], [startOf(hole), ...kids.map(startOf)]);
-    return this.slugs.get(k, () => slugOf(hole, nodes));
+    const kids: LoopNode[] = [];
+    for (const c of hole.children) kids.push(nodes[c]);
+    const k = this.key(hole, kids);
+    const area = this.slugs.find(k);
+    return area ?? this.slugs.put(k, slugOf(hole, nodes));
   }
 }
 
-/** a loop's path takes part in several keys (its part's, its parent's, a slug's): its start is found once */
-function startOf(node: LoopNode): number {
-  return (node.lowestIndex ??= lowest(node.ring));
+/** a part's finished shape and the numbers the finding and the cut-order check read */
+class Built implements BuiltPart {
+  constructor(
+    readonly part: AnalysisPart,
+    readonly node: LoopNode,
+    private readonly shape: PlacedShape,
+    readonly freedMove: number,
+    readonly sortMove: number,
+  ) {}
+
+  get outline(): Paths { return this.shape.outline(); }
+  get outlineAreas(): number[] { return this.shape.outlineAreas; }
+}
+
+/** a hole whose slug nothing holds, reported once the parts are numbered */
+interface LooseSlug {
+  part: AnalysisPart;
+  hole: LoopNode;
+  line: number;
+  /** the slug's exact area, NaN until worked out */
+  areaMm2: number;
 }
 
 export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSink, shapes = new PartShapes()): { parts: BuiltPart[]; holes: number; looseSlugs: number } {
-  const built: BuiltPart[] = [];
+  const built: Built[] = [];
   let holeCount = 0;
-  const slugChecks: Array<() => void> = [];
+  const unheld: Array<{ part: AnalysisPart; reason: string }> = [];
+  const slugs: LooseSlug[] = [];
+  const holeNodes: LoopNode[] = [];
   for (const node of nodes) {
     if (node.depth % 2 !== 0) continue;
-    const holeNodes = node.children.map((c) => nodes[c]);
+    holeNodes.length = 0;
+    for (const c of node.children) holeNodes.push(nodes[c]);
     const shape = shapes.part(node, holeNodes);
-    const { outlineAreas, areaMm2: area, perimeterMm: perimeter } = shape;
-    if (area < MIN_PART_AREA_MM2 || !shape.bbox) continue;
+    const area = shape.areaMm2;
     const bbox = shape.bbox;
+    if (area < MIN_PART_AREA_MM2 || !bbox) continue;
     const info = node.info;
     const part: AnalysisPart = {
-      id: 0, order: 0, bbox, areaMm2: area, perimeterMm: perimeter, holes: 0,
+      id: 0, order: 0, bbox, areaMm2: area, perimeterMm: shape.perimeterMm, holes: 0,
       tabs: info.tabs.length, tabDetails: info.tabs, skinMm: info.skinMm,
       held: true, holdBy: 'none', freedAtLine: info.freedMove >= 0 ? ctx.line[info.freedMove] : null, tool: info.tool,
     };
@@ -120,54 +188,62 @@ export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSin
       const v = freedPieceHold(ctx.method, area, info.tool, ctx.vacuumKpa, ctx.settings);
       part.held = v.held;
       part.holdBy = v.holdBy;
-      if (!v.held) {
-        slugChecks.push(() => {
-          sink.add('unheld-part', 'error', part.freedAtLine ?? 0,
-            `Part ${part.id} (${fmt(bbox.maxX - bbox.minX)} × ${fmt(bbox.maxY - bbox.minY)} mm, ${fmt(area, 0)} mm²) is cut free at line ${part.freedAtLine} and nothing holds it: ${v.reason}. Leave tabs or an onion skin, or hold it with tape and glue.`,
-            part.id);
-        });
-      }
+      if (!v.held) unheld.push({ part, reason: v.reason });
     }
-    const b: BuiltPart = { part, node, get outline() { return shape.outline(); }, outlineAreas, freedMove: info.freedMove, sortMove: info.freedMove >= 0 ? info.freedMove : info.completedMove };
-    built.push(b);
+    built.push(new Built(part, node, shape, info.freedMove, info.freedMove >= 0 ? info.freedMove : info.completedMove));
     for (const h of holeNodes) {
       part.holes++;
       holeCount++;
       const hi = h.info;
       // tape and glue hold any slug, whatever its size; tabs or skin keep it in the sheet
       if (ctx.method === 'tape-glue' || hi.tabs.length > 0 || hi.skinMm > 0 || hi.freedMove < 0) continue;
-      let exact = NaN;
-      const slugArea = () => (Number.isNaN(exact) ? (exact = shapes.slug(h, nodes)) : exact);
       const upper = h.areaMm2;
       const lower = h.children.length === 0 ? upper - h.radiusMm * h.perimeterMm : -Infinity;
       const decided = lower > MIN_PART_AREA_MM2 && !freedPieceHeld(ctx.method, upper, hi.tool, ctx.vacuumKpa, ctx.settings);
+      let exact = NaN;
       if (!decided) {
-        const slug = slugArea();
-        if (slug <= MIN_PART_AREA_MM2 || freedPieceHeld(ctx.method, slug, hi.tool, ctx.vacuumKpa, ctx.settings)) continue;
+        exact = shapes.slug(h, nodes);
+        if (exact <= MIN_PART_AREA_MM2 || freedPieceHeld(ctx.method, exact, hi.tool, ctx.vacuumKpa, ctx.settings)) continue;
       }
-      const line = ctx.line[hi.freedMove];
-      slugChecks.push(() => {
-        // the exact area and the wording only for a finding that is listed; the rest are counted
-        sink.add('loose-slug', 'warning', line, () => {
-          const slug = slugArea();
-          const v = freedPieceHold(ctx.method, slug, hi.tool, ctx.vacuumKpa, ctx.settings);
-          return `The scrap inside a hole of part ${part.id} (${fmt(h.bbox.maxX - h.bbox.minX)} × ${fmt(h.bbox.maxY - h.bbox.minY)} mm tool path, slug ${fmt(slug, 0)} mm²) is cut free at line ${line} and nothing holds it: ${v.reason}. A loose slug can be thrown by the cutter; leave a tab or skin on it, or clear it as a pocket.`;
-        }, part.id);
-      });
+      slugs.push({ part, hole: h, line: ctx.line[hi.freedMove], areaMm2: exact });
     }
   }
   // ids in program order of the first cut; order: freed parts as they are freed, then those tabs or skin keep
-  built.sort((a, b) => a.node.info.firstMove - b.node.info.firstMove);
-  built.forEach((b, i) => { b.part.id = i + 1; });
-  const byOrder = built.slice().sort((a, b) => {
-    const fa = a.freedMove >= 0 ? 0 : 1, fb = b.freedMove >= 0 ? 0 : 1;
-    return fa - fb || a.sortMove - b.sortMove || a.part.id - b.part.id;
-  });
-  byOrder.forEach((b, i) => { b.part.order = i + 1; });
+  built.sort(byFirstMove);
+  for (let i = 0; i < built.length; i++) built[i].part.id = i + 1;
+  const byOrder = built.slice().sort(byFreeing);
+  for (let i = 0; i < byOrder.length; i++) byOrder[i].part.order = i + 1;
+  for (const u of unheld) unheldPart(sink, u.part, u.reason);
   let looseSlugs = 0;
-  for (const f of slugChecks) f();
+  for (const slug of slugs) looseSlug(sink, slug, shapes, nodes, ctx);
   for (const f of sink.findings) if (f.kind === 'loose-slug') looseSlugs++;
   return { parts: built, holes: holeCount, looseSlugs: looseSlugs + (sink.suppressed['loose-slug'] ?? 0) };
+}
+
+function byFirstMove(a: Built, b: Built): number {
+  return a.node.info.firstMove - b.node.info.firstMove;
+}
+
+function byFreeing(a: Built, b: Built): number {
+  const fa = a.freedMove >= 0 ? 0 : 1, fb = b.freedMove >= 0 ? 0 : 1;
+  return fa - fb || a.sortMove - b.sortMove || a.part.id - b.part.id;
+}
+
+function unheldPart(sink: FindingSink, part: AnalysisPart, reason: string): void {
+  const b = part.bbox;
+  sink.add('unheld-part', 'error', part.freedAtLine ?? 0,
+    `Part ${part.id} (${fmt(b.maxX - b.minX)} × ${fmt(b.maxY - b.minY)} mm, ${fmt(part.areaMm2, 0)} mm²) is cut free at line ${part.freedAtLine} and nothing holds it: ${reason}. Leave tabs or an onion skin, or hold it with tape and glue.`,
+    part.id);
+}
+
+/** the exact area and the wording only for a finding that is listed; the rest are counted */
+function looseSlug(sink: FindingSink, s: LooseSlug, shapes: PartShapes, nodes: LoopNode[], ctx: PartContext): void {
+  sink.add('loose-slug', 'warning', s.line, () => {
+    const h = s.hole;
+    const slug = Number.isNaN(s.areaMm2) ? (s.areaMm2 = shapes.slug(h, nodes)) : s.areaMm2;
+    const v = freedPieceHold(ctx.method, slug, h.info.tool, ctx.vacuumKpa, ctx.settings);
+    return `The scrap inside a hole of part ${s.part.id} (${fmt(h.bbox.maxX - h.bbox.minX)} × ${fmt(h.bbox.maxY - h.bbox.minY)} mm tool path, slug ${fmt(slug, 0)} mm²) is cut free at line ${s.line} and nothing holds it: ${v.reason}. A loose slug can be thrown by the cutter; leave a tab or skin on it, or clear it as a pocket.`;
+  }, s.part.id);
 }
 
 /**

@@ -1,17 +1,17 @@
 // Memo for the Clipper work on loops that repeat. A nested sheet cuts the same part many
 // times over, and the kerf offsets and areas of a loop (with its holes and tool radii) do not
-// change when the loop is only moved, so they are kept under a key made of the radii and the
-// loops' integer vertices relative to the first loop's lowest-leftmost vertex. The key is
-// hashed, and a hit is compared in full, so a hit is always the same shape (Clipper's answer
-// for it at the new place could differ only in its 1 µm rounding); a copy whose vertices round
-// differently only misses and is computed afresh.
+// change when the loop is only moved, so they are kept under a key of numbers: which shapes
+// (loop-shapes.ts matches congruent loops point for point), where the holes sit relative to
+// the part's origin, and the radii. The key is hashed, and a hit is compared in full, so a hit
+// is always the same shape at another place (Clipper's answer there could differ only in its
+// 1 µm rounding).
 import type { Path, Ring } from './geometry';
 
 export interface ShapeKey {
   hash: number;
-  /** radii, then per path its length and its vertices relative to the origin */
+  /** the numbers that identify the shape, its origin left out */
   data: Float64Array;
-  /** the vertex the key is relative to, in Clipper units */
+  /** the grid point the key is relative to, in Clipper units */
   ox: number;
   oy: number;
 }
@@ -26,35 +26,11 @@ export function lowest(ring: Ring): number {
   return s;
 }
 
-/**
- * translation-invariant key of `rings` (the first one sets the origin) and the numbers in
- * `extra`; `starts` may give each ring's lowest() when the caller keeps it
- */
-export function shapeKey(rings: Ring[], extra: number[], starts?: number[]): ShapeKey {
-  const s0 = starts ? starts[0] : lowest(rings[0]);
-  const ox = rings[0].x[s0], oy = rings[0].y[s0];
-  let size = extra.length;
-  for (const r of rings) size += 1 + 2 * r.x.length;
-  const data = new Float64Array(size);
-  let o = 0;
-  for (const v of extra) data[o++] = v;
-  let h = 0x811c9dc5 ^ size;
-  for (let k = 0; k < rings.length; k++) {
-    // each ring starts at its own lowest vertex, so where a loop was entered does not matter
-    const ring = rings[k];
-    const xs = ring.x, ys = ring.y;
-    const n = xs.length, start = k === 0 ? s0 : starts ? starts[k] : lowest(ring);
-    data[o++] = n;
-    for (let j = start, c = 0; c < n; c++, j = j + 1 === n ? 0 : j + 1) {
-      const dx = xs[j] - ox, dy = ys[j] - oy;
-      data[o] = dx;
-      data[o + 1] = dy;
-      o += 2;
-      h = Math.imul(h ^ dx, 0x01000193) ^ dy;
-    }
-  }
-  for (const v of extra) h = Math.imul(h ^ Math.round(v * 1e6), 0x01000193);
-  return { hash: h >>> 0, data, ox, oy };
+/** FNV-style hash of a key's numbers (whole numbers and radii in mm) */
+export function hashNumbers(data: Float64Array): number {
+  let h = 0x811c9dc5 ^ data.length;
+  for (let i = 0; i < data.length; i++) h = Math.imul(h ^ Math.round(data[i] * 1e6), 0x01000193);
+  return h >>> 0;
 }
 
 export function translatePath(path: Path, dx: number, dy: number): Path {
@@ -74,8 +50,8 @@ export class ShapeCache<T> {
   hits = 0;
   misses = 0;
 
-  /** the cached value for `key`, or `compute()` stored under it */
-  get(key: ShapeKey, compute: () => T): T {
+  /** the value stored under a key equal to `key`, or undefined (counted as a hit or a miss) */
+  find(key: ShapeKey): T | undefined {
     const list = this.map.get(key.hash);
     if (list) {
       for (const e of list) {
@@ -86,7 +62,12 @@ export class ShapeCache<T> {
       }
     }
     this.misses++;
-    const value = compute();
+    return undefined;
+  }
+
+  /** stores value under key (after find() missed) and returns it */
+  put(key: ShapeKey, value: T): T {
+    const list = this.map.get(key.hash);
     if (list) list.push({ data: key.data, value });
     else this.map.set(key.hash, [{ data: key.data, value }]);
     return value;

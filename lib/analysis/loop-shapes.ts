@@ -1,0 +1,252 @@
+// The outline of each closed loop as a shape shared by its congruent copies. A nested sheet
+// cuts the same part many times over; the loops the cut graph gives for the copies differ only
+// by where they sit. So each loop is keyed, without allocating, by its graph vertices on
+// Clipper's micrometre grid relative to its lowest-leftmost vertex (the origin) and by its arc
+// edges' centres, radii and sweeps; a copy whose key matches in full shares the first copy's
+// ring, area, perimeter and box, and keeps only its origin. The points of a ring (arcs as
+// chords) are drawn once per distinct shape. Two copies whose vertices round to the same
+// micrometres get the same ring, to the micrometre: below the chain tolerance that snaps the
+// graph's vertices in the first place.
+import type { CutGraph } from './cut-graph';
+import type { GraphLoop } from './faces';
+import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, type Ring } from './geometry';
+import { lowest } from './shape-cache';
+
+// a module-level copy: an imported binding is read through an accessor on every use in the hot loops
+const GRID = SCALE;
+
+export interface LoopShape {
+  /** index in LoopShapes.shapes: congruent copies share it */
+  id: number;
+  /** counter-clockwise, on the integer grid, relative to the origin */
+  ring: Ring;
+  /** index of the ring's lowest-leftmost point */
+  start: number;
+  areaMm2: number;
+  perimeterMm: number;
+  /** grid box relative to the origin: minX, minY, maxX, maxY */
+  box: Float64Array;
+}
+
+/** a loop at its place: the shared shape and the grid point its origin sits at */
+export interface PlacedLoop {
+  shape: LoopShape;
+  ox: number;
+  oy: number;
+}
+
+const ANGLE_UNITS = 1e9;
+
+export class LoopShapes {
+  readonly shapes: LoopShape[] = [];
+  private readonly byHash = new Map<number, number[]>();
+  private readonly keys: Float64Array[] = [];
+  hits = 0;
+  misses = 0;
+  /** the graph's vertices rounded to the grid once, shared by every loop of it */
+  private graph: CutGraph | null = null;
+  private qx = new Float64Array(0);
+  private qy = new Float64Array(0);
+
+  private gridOf(g: CutGraph): void {
+    if (this.graph === g && this.qx.length === g.vertexCount) return;
+    const n = g.vertexCount;
+    const vx = g.vx, vy = g.vy;
+    const qx = new Float64Array(n), qy = new Float64Array(n);
+    for (let v = 0; v < n; v++) {
+      qx[v] = Math.round(vx[v] * GRID);
+      qy[v] = Math.round(vy[v] * GRID);
+    }
+    this.graph = g;
+    this.qx = qx;
+    this.qy = qy;
+  }
+
+  /**
+   * the shape of a graph loop and its origin; `toleranceMm` is the chord sagitta its arcs are
+   * drawn with when the shape is new
+   */
+  place(g: CutGraph, loop: GraphLoop, toleranceMm: number): PlacedLoop {
+    this.gridOf(g);
+    const verts = loop.verts;
+    const n = verts.length;
+    const gx = this.qx, gy = this.qy;
+    // origin: the lowest-leftmost vertex on the grid
+    let s = 0;
+    let ox = gx[verts[0]], oy = gy[verts[0]];
+    for (let i = 1; i < n; i++) {
+      const qx = gx[verts[i]], qy = gy[verts[i]];
+      if (qy < oy || (qy === oy && qx < ox)) { s = i; ox = qx; oy = qy; }
+    }
+    const hash = this.hashOf(g, loop, s, ox, oy);
+    const list = this.byHash.get(hash);
+    if (list) {
+      for (const id of list) {
+        if (this.matches(this.keys[id], g, loop, s, ox, oy)) {
+          this.hits++;
+          return { shape: this.shapes[id], ox, oy };
+        }
+      }
+    }
+    this.misses++;
+    const id = this.shapes.length;
+    const shape = drawShape(id, g, loop, s, ox, oy, toleranceMm);
+    this.shapes.push(shape);
+    this.keys.push(keyOf(g, loop, s, ox, oy));
+    if (list) list.push(id);
+    else this.byHash.set(hash, [id]);
+    return { shape, ox, oy };
+  }
+
+  private hashOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): number {
+    const { verts, edges } = loop;
+    const n = verts.length;
+    const gx = this.qx, gy = this.qy, eR = g.eR;
+    let h = 0x811c9dc5 ^ n;
+    for (let c = 0, i = s; c < n; c++, i = i + 1 === n ? 0 : i + 1) {
+      const v = verts[i];
+      h = Math.imul(h ^ (gx[v] - ox), 0x01000193);
+      h = Math.imul(h ^ (gy[v] - oy), 0x01000193);
+      const r = eR[edges[i]];
+      if (r > 0) h = Math.imul(h ^ Math.round(r * GRID), 0x01000193);
+    }
+    return h >>> 0;
+  }
+
+  private matches(key: Float64Array, g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): boolean {
+    const { verts, edges } = loop;
+    const n = verts.length;
+    if (key.length !== 6 * n) return false;
+    const gx = this.qx, gy = this.qy, eR = g.eR;
+    for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
+      const v = verts[i], e = edges[i];
+      if (key[o] !== gx[v] - ox || key[o + 1] !== gy[v] - oy) return false;
+      const r = eR[e];
+      if (r > 0) {
+        const forward = g.eu[e] === v;
+        if (key[o + 2] !== Math.round(r * GRID) ||
+          key[o + 3] !== Math.round((forward ? g.eSweep[e] : -g.eSweep[e]) * ANGLE_UNITS) ||
+          key[o + 4] !== Math.round(g.eCx[e] * GRID) - ox || key[o + 5] !== Math.round(g.eCy[e] * GRID) - oy) return false;
+      } else if (key[o + 2] !== 0) return false;
+    }
+    return true;
+  }
+}
+
+/** per edge from the origin: vertex dx, dy; radius, sweep as walked, centre dx, dy (zeros for a straight edge) */
+function keyOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): Float64Array {
+  const { verts, edges } = loop;
+  const n = verts.length;
+  const key = new Float64Array(6 * n);
+  for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
+    const v = verts[i], e = edges[i];
+    key[o] = Math.round(g.vx[v] * GRID) - ox;
+    key[o + 1] = Math.round(g.vy[v] * GRID) - oy;
+    const r = g.eR[e];
+    if (r > 0) {
+      key[o + 2] = Math.round(r * GRID);
+      key[o + 3] = Math.round((g.eu[e] === v ? g.eSweep[e] : -g.eSweep[e]) * ANGLE_UNITS);
+      key[o + 4] = Math.round(g.eCx[e] * GRID) - ox;
+      key[o + 5] = Math.round(g.eCy[e] * GRID) - oy;
+    }
+  }
+  return key;
+}
+
+/**
+ * The loop's ring from its origin, arc edges drawn as m ≥ 2 chords of at most toleranceMm
+ * sagitta. The inner points of each arc sit on a radius ρ a little outside r, chosen so the fan
+ * of chords encloses exactly the sector's area: r·ρ·sin φ + (m − 2)/2 · ρ²·sin φ = r²·θ/2 with
+ * φ = θ/m (end points stay on the arc, where the arc meets its neighbours). Areas then stay
+ * exact at a chord error coarse enough to keep Clipper's offsets cheap; the outline errs by
+ * about a third of the sagitta either way, and the turns keep their sign, so a convex loop
+ * stays convex.
+ */
+function drawShape(id: number, g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number, toleranceMm: number): LoopShape {
+  const { verts, edges } = loop;
+  const n = verts.length;
+  // first the chord count of each arc edge, so the points go straight into their arrays
+  const chords = new Int32Array(n);
+  let total = n;
+  for (let i = 0; i < n; i++) {
+    const r = g.eR[edges[i]];
+    if (r <= 0) continue;
+    const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
+    const m = Math.max(2, Math.ceil(Math.abs(g.eSweep[edges[i]]) / step));
+    chords[i] = m;
+    total += m - 1;
+  }
+  const x = new Float64Array(total), y = new Float64Array(total);
+  let o = 0;
+  for (let c = 0, i = s; c < n; c++, i = i + 1 === n ? 0 : i + 1) {
+    const from = verts[i];
+    x[o] = Math.round(g.vx[from] * GRID) - ox;
+    y[o] = Math.round(g.vy[from] * GRID) - oy;
+    o++;
+    const m = chords[i];
+    if (m === 0) continue;
+    const e = edges[i];
+    const r = g.eR[e];
+    const forward = g.eu[e] === from;
+    const sweep = forward ? g.eSweep[e] : -g.eSweep[e];
+    const a0 = forward ? g.eAu[e] : g.eAu[e] + g.eSweep[e];
+    const rho = areaRadius(r, Math.abs(sweep), m);
+    const cx = g.eCx[e], cy = g.eCy[e];
+    for (let k = 1; k < m; k++) {
+      x[o] = Math.round((cx + rho * Math.cos(a0 + (sweep * k) / m)) * GRID) - ox;
+      y[o] = Math.round((cy + rho * Math.sin(a0 + (sweep * k) / m)) * GRID) - oy;
+      o++;
+    }
+  }
+  return shapeOfRing(id, { x, y });
+}
+
+/** radius of the inner chord points that makes m chords of a sweep θ enclose the sector's area */
+export function areaRadius(r: number, theta: number, m: number): number {
+  const s = Math.sin(theta / m);
+  if (s <= 0) return r;
+  const c = 0.5 * r * r * theta;
+  if (m === 2) return c / (r * s);
+  const a = ((m - 2) / 2) * s, b = r * s;
+  return (-b + Math.sqrt(b * b + 4 * a * c)) / (2 * a);
+}
+
+/** a shape from a ring already relative to its origin (turned counter-clockwise if it is not) */
+export function shapeOfRing(id: number, ring: Ring): LoopShape {
+  let area = ringAreaMm2(ring);
+  if (area < 0) {
+    reverseRing(ring);
+    area = -area;
+  }
+  const { x, y } = ring;
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (let i = 0; i < x.length; i++) {
+    const px = x[i], py = y[i];
+    if (px < minX) minX = px;
+    if (px > maxX) maxX = px;
+    if (py < minY) minY = py;
+    if (py > maxY) maxY = py;
+  }
+  return { id, ring, start: lowest(ring), areaMm2: area, perimeterMm: ringPerimeterMm(ring), box: Float64Array.of(minX, minY, maxX, maxY) };
+}
+
+/**
+ * a placed loop from points in mm (tests and callers without a cut graph): its own shape, with
+ * the origin at its lowest-leftmost grid point; `id` must not collide with a LoopShapes id
+ * that it is compared with
+ */
+export function placePoints(xs: ArrayLike<number>, ys: ArrayLike<number>, id = -1): PlacedLoop {
+  const n = xs.length;
+  const qx = new Float64Array(n), qy = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    qx[i] = Math.round(xs[i] * GRID);
+    qy[i] = Math.round(ys[i] * GRID);
+  }
+  const s = lowest({ x: qx, y: qy });
+  const ox = qx[s], oy = qy[s];
+  for (let i = 0; i < n; i++) {
+    qx[i] -= ox;
+    qy[i] -= oy;
+  }
+  return { shape: shapeOfRing(id, { x: qx, y: qy }), ox, oy };
+}
