@@ -47,9 +47,14 @@ export class LoopShapes {
   private graph: CutGraph | null = null;
   private qx = new Float64Array(0);
   private qy = new Float64Array(0);
+  /** per arc edge, rounded: radius, sweep from end u to end v, centre (0 for a straight edge) */
+  private aR = new Float64Array(0);
+  private aSweep = new Float64Array(0);
+  private aCx = new Float64Array(0);
+  private aCy = new Float64Array(0);
 
   private gridOf(g: CutGraph): void {
-    if (this.graph === g && this.qx.length === g.vertexCount) return;
+    if (this.graph === g && this.qx.length === g.vertexCount && this.aR.length === g.edgeCount) return;
     const n = g.vertexCount;
     const vx = g.vx, vy = g.vy;
     const qx = new Float64Array(n), qy = new Float64Array(n);
@@ -57,9 +62,19 @@ export class LoopShapes {
       qx[v] = Math.round(vx[v] * GRID);
       qy[v] = Math.round(vy[v] * GRID);
     }
+    const m = g.edgeCount;
+    const eR = g.eR, eSweep = g.eSweep, eCx = g.eCx, eCy = g.eCy;
+    const aR = new Float64Array(m), aSweep = new Float64Array(m), aCx = new Float64Array(m), aCy = new Float64Array(m);
+    for (let e = 0; e < m; e++) {
+      if (eR[e] <= 0) continue;
+      aR[e] = Math.round(eR[e] * GRID);
+      aSweep[e] = Math.round(eSweep[e] * ANGLE_UNITS);
+      aCx[e] = Math.round(eCx[e] * GRID);
+      aCy[e] = Math.round(eCy[e] * GRID);
+    }
     this.graph = g;
-    this.qx = qx;
-    this.qy = qy;
+    this.qx = qx; this.qy = qy;
+    this.aR = aR; this.aSweep = aSweep; this.aCx = aCx; this.aCy = aCy;
   }
 
   /**
@@ -92,7 +107,7 @@ export class LoopShapes {
     const id = this.shapes.length;
     const shape = drawShape(id, g, loop, s, ox, oy, toleranceMm);
     this.shapes.push(shape);
-    this.keys.push(keyOf(g, loop, s, ox, oy));
+    this.keys.push(this.keyOf(loop, s, ox, oy));
     if (list) list.push(id);
     else this.byHash.set(hash, [id]);
     return { shape, ox, oy };
@@ -101,56 +116,49 @@ export class LoopShapes {
   private hashOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): number {
     const { verts, edges } = loop;
     const n = verts.length;
-    const gx = this.qx, gy = this.qy, eR = g.eR;
+    const gx = this.qx, gy = this.qy, aR = this.aR;
     let h = 0x811c9dc5 ^ n;
     for (let c = 0, i = s; c < n; c++, i = i + 1 === n ? 0 : i + 1) {
       const v = verts[i];
       h = Math.imul(h ^ (gx[v] - ox), 0x01000193);
       h = Math.imul(h ^ (gy[v] - oy), 0x01000193);
-      const r = eR[edges[i]];
-      if (r > 0) h = Math.imul(h ^ Math.round(r * GRID), 0x01000193);
+      h = Math.imul(h ^ aR[edges[i]], 0x01000193);
     }
-    return h >>> 0;
+    return h & 0x3fffffff; // a small integer: Map keys and comparisons stay on the fast path
   }
 
   private matches(key: Float64Array, g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): boolean {
     const { verts, edges } = loop;
     const n = verts.length;
     if (key.length !== 6 * n) return false;
-    const gx = this.qx, gy = this.qy, eR = g.eR;
+    const gx = this.qx, gy = this.qy, aR = this.aR, aSweep = this.aSweep, aCx = this.aCx, aCy = this.aCy, eu = g.eu;
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
       const v = verts[i], e = edges[i];
-      if (key[o] !== gx[v] - ox || key[o + 1] !== gy[v] - oy) return false;
-      const r = eR[e];
-      if (r > 0) {
-        const forward = g.eu[e] === v;
-        if (key[o + 2] !== Math.round(r * GRID) ||
-          key[o + 3] !== Math.round((forward ? g.eSweep[e] : -g.eSweep[e]) * ANGLE_UNITS) ||
-          key[o + 4] !== Math.round(g.eCx[e] * GRID) - ox || key[o + 5] !== Math.round(g.eCy[e] * GRID) - oy) return false;
-      } else if (key[o + 2] !== 0) return false;
+      if (key[o] !== gx[v] - ox || key[o + 1] !== gy[v] - oy || key[o + 2] !== aR[e]) return false;
+      if (aR[e] > 0 && (key[o + 3] !== (eu[e] === v ? aSweep[e] : -aSweep[e]) || key[o + 4] !== aCx[e] - ox || key[o + 5] !== aCy[e] - oy)) return false;
     }
     return true;
   }
-}
 
-/** per edge from the origin: vertex dx, dy; radius, sweep as walked, centre dx, dy (zeros for a straight edge) */
-function keyOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): Float64Array {
-  const { verts, edges } = loop;
-  const n = verts.length;
-  const key = new Float64Array(6 * n);
-  for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
-    const v = verts[i], e = edges[i];
-    key[o] = Math.round(g.vx[v] * GRID) - ox;
-    key[o + 1] = Math.round(g.vy[v] * GRID) - oy;
-    const r = g.eR[e];
-    if (r > 0) {
-      key[o + 2] = Math.round(r * GRID);
-      key[o + 3] = Math.round((g.eu[e] === v ? g.eSweep[e] : -g.eSweep[e]) * ANGLE_UNITS);
-      key[o + 4] = Math.round(g.eCx[e] * GRID) - ox;
-      key[o + 5] = Math.round(g.eCy[e] * GRID) - oy;
+  /** per edge from the origin: vertex dx, dy; radius, sweep as walked, centre dx, dy (zeros for a straight edge) */
+  private keyOf(loop: GraphLoop, s: number, ox: number, oy: number): Float64Array {
+    const { verts, edges } = loop;
+    const n = verts.length;
+    const g = this.graph!;
+    const key = new Float64Array(6 * n);
+    for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
+      const v = verts[i], e = edges[i];
+      key[o] = this.qx[v] - ox;
+      key[o + 1] = this.qy[v] - oy;
+      key[o + 2] = this.aR[e];
+      if (this.aR[e] > 0) {
+        key[o + 3] = g.eu[e] === v ? this.aSweep[e] : -this.aSweep[e];
+        key[o + 4] = this.aCx[e] - ox;
+        key[o + 5] = this.aCy[e] - oy;
+      }
     }
+    return key;
   }
-  return key;
 }
 
 /**

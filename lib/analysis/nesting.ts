@@ -7,6 +7,9 @@ import type { LoopShape } from './loop-shapes';
 import { AREA_CHORD_MM, type LoopInfo } from './loops';
 import type { BBox } from './types';
 
+// a module-level copy: an imported binding is read through an accessor on every use
+const GRID = SCALE;
+
 export interface LoopNode {
   info: LoopInfo;
   /** the tool-centre loop's outline (shared by congruent copies) and its origin on the grid */
@@ -25,27 +28,38 @@ export interface LoopNode {
 }
 
 export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number, toleranceMm: number): LoopNode[] {
-  const all: LoopNode[] = infos.map((info) => loopNode(info, info.shape, info.ox, info.oy, radiusOf(info.tool)));
-  all.sort((a, b) => b.areaMm2 - a.areaMm2);
-  // a uniform grid of the kept loops' boxes: a loop's container must cover the cell of its first point
+  const all: LoopNode[] = new Array(infos.length);
+  for (let i = 0; i < infos.length; i++) {
+    const info = infos[i];
+    all[i] = new Node(info, info.shape, info.ox, info.oy, radiusOf(info.tool));
+  }
+  all.sort(byAreaDescending);
+  // a uniform grid of the kept loops' boxes: a loop's container must cover the cell of its
+  // origin (a point of the loop); each cell lists its loops newest first (a linked list on
+  // typed arrays), so the smallest candidate container is tried first
   let gx0 = Infinity, gy0 = Infinity, gx1 = -Infinity, gy1 = -Infinity;
   for (const n of all) {
-    gx0 = Math.min(gx0, n.bbox.minX); gy0 = Math.min(gy0, n.bbox.minY);
-    gx1 = Math.max(gx1, n.bbox.maxX); gy1 = Math.max(gy1, n.bbox.maxY);
+    const b = n.bbox;
+    if (b.minX < gx0) gx0 = b.minX;
+    if (b.minY < gy0) gy0 = b.minY;
+    if (b.maxX > gx1) gx1 = b.maxX;
+    if (b.maxY > gy1) gy1 = b.maxY;
   }
   const side = Math.max(1, Math.min(256, Math.ceil(Math.sqrt(all.length))));
   const cw = Math.max((gx1 - gx0) / side, 1e-9), ch = Math.max((gy1 - gy0) / side, 1e-9);
-  const col = (x: number) => Math.min(side - 1, Math.max(0, Math.floor((x - gx0) / cw)));
-  const row = (y: number) => Math.min(side - 1, Math.max(0, Math.floor((y - gy0) / ch)));
-  const cells: number[][] = Array.from({ length: side * side }, () => []);
+  const head = new Int32Array(side * side).fill(-1);
+  let entryNode = new Int32Array(4 * all.length + 16);
+  let entryNext = new Int32Array(entryNode.length);
+  let entries = 0;
   const kept: LoopNode[] = [];
   for (let i = 0; i < all.length; i++) {
     const node = all[i];
     let parent = -1;
-    const list = cells[row(node.oy / SCALE) * side + col(node.ox / SCALE)];
-    for (let j = list.length - 1; j >= 0; j--) {
-      if (contains(kept[list[j]], node, toleranceMm)) {
-        parent = list[j];
+    const c0 = cellOf(node.ox / GRID, gx0, cw, side), r0 = cellOf(node.oy / GRID, gy0, ch, side);
+    for (let k = head[r0 * side + c0]; k >= 0; k = entryNext[k]) {
+      const j = entryNode[k];
+      if (contains(kept[j], node, toleranceMm)) {
+        parent = j;
         break;
       }
     }
@@ -64,10 +78,37 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
     }
     const id = kept.length;
     kept.push(node);
-    for (let r = row(node.bbox.minY); r <= row(node.bbox.maxY); r++)
-      for (let c = col(node.bbox.minX); c <= col(node.bbox.maxX); c++) cells[r * side + c].push(id);
+    const b = node.bbox;
+    const ra = cellOf(b.minY, gy0, ch, side), rb = cellOf(b.maxY, gy0, ch, side);
+    const ca = cellOf(b.minX, gx0, cw, side), cb = cellOf(b.maxX, gx0, cw, side);
+    for (let r = ra; r <= rb; r++)
+      for (let c = ca; c <= cb; c++) {
+        if (entries === entryNode.length) {
+          entryNode = grown(entryNode);
+          entryNext = grown(entryNext);
+        }
+        const cell = r * side + c;
+        entryNode[entries] = id;
+        entryNext[entries] = head[cell];
+        head[cell] = entries++;
+      }
   }
   return kept;
+}
+
+function cellOf(v: number, lo: number, size: number, side: number): number {
+  const k = Math.floor((v - lo) / size);
+  return k < 0 ? 0 : k >= side ? side - 1 : k;
+}
+
+function grown(a: Int32Array): Int32Array<ArrayBuffer> {
+  const b = new Int32Array(a.length * 2);
+  b.set(a);
+  return b;
+}
+
+function byAreaDescending(a: LoopNode, b: LoopNode): number {
+  return b.areaMm2 - a.areaMm2;
 }
 
 function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
@@ -88,23 +129,35 @@ function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
   return true;
 }
 
+/** a placed loop in the nesting; its Clipper path is made when first read (for offsets) */
+class Node implements LoopNode {
+  readonly areaMm2: number;
+  readonly perimeterMm: number;
+  readonly bbox: BBox;
+  depth = 0;
+  parent = -1;
+  children: number[] = [];
+  private clipperPath: Path | null = null;
+
+  constructor(readonly info: LoopInfo, readonly shape: LoopShape, readonly ox: number, readonly oy: number, readonly radiusMm: number) {
+    const box = shape.box;
+    this.areaMm2 = shape.areaMm2;
+    this.perimeterMm = shape.perimeterMm;
+    this.bbox = { minX: (box[0] + ox) / GRID, minY: (box[1] + oy) / GRID, maxX: (box[2] + ox) / GRID, maxY: (box[3] + oy) / GRID };
+  }
+
+  get path(): Path {
+    if (this.clipperPath) return this.clipperPath;
+    const { x, y } = this.shape.ring;
+    const path: Path = new Array(x.length);
+    for (let i = 0; i < x.length; i++) path[i] = { X: x[i] + this.ox, Y: y[i] + this.oy };
+    return (this.clipperPath = path);
+  }
+}
+
 /** the node of one placed loop, not yet nested */
 export function loopNode(info: LoopInfo, shape: LoopShape, ox: number, oy: number, radiusMm: number): LoopNode {
-  let path: Path | null = null;
-  const box = shape.box;
-  return {
-    info, shape, ox, oy,
-    get path() {
-      if (path) return path;
-      const { x, y } = shape.ring;
-      path = new Array(x.length);
-      for (let i = 0; i < x.length; i++) path[i] = { X: x[i] + ox, Y: y[i] + oy };
-      return path;
-    },
-    areaMm2: shape.areaMm2, perimeterMm: shape.perimeterMm,
-    bbox: { minX: (box[0] + ox) / SCALE, minY: (box[1] + oy) / SCALE, maxX: (box[2] + ox) / SCALE, maxY: (box[3] + oy) / SCALE },
-    radiusMm, depth: 0, parent: -1, children: [],
-  };
+  return new Node(info, shape, ox, oy, radiusMm);
 }
 
 /** the merged cut frees the part as soon as either loop is through all round */
