@@ -1,9 +1,12 @@
 // Areas and containment of through-cut parts against closed forms and against an independent
-// polygon library (@flatten-js/core, exact circular arcs), and Clipper's own offsets.
+// polygon library (@flatten-js/core, exact circular arcs), and Clipper's own offsets; the
+// typed-array rings the nesting works on against Clipper's point-in-polygon and area.
 import Flatten from '@flatten-js/core';
+import ClipperLib from 'clipper-lib';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyze } from '@/lib/analysis';
-import { offsetPaths, pathsAreaMm2, pointInPath, toPath } from '@/lib/analysis/geometry';
+import { offsetPaths, pathsAreaMm2, pointInPath, pointInRing, ringAreaMm2, ringPerimeterMm, ringToPath, toPath, toRing } from '@/lib/analysis/geometry';
 import { ProgramWriter } from './support/program';
 import { job } from './support/jobs';
 
@@ -127,5 +130,41 @@ describe('containment and nesting', () => {
     const r = analyze(w.build(), job(18));
     expect(r.parts).toHaveLength(1);
     expect(r.parts[0].holes).toBe(0);
+  });
+});
+
+describe('rings on the micrometre grid against Clipper (clipper-lib as the reference)', () => {
+  // random simple and self-crossing polygons on a small grid, so points on edges and vertices come up often
+  const polygon = fc.array(fc.tuple(fc.integer({ min: -20, max: 20 }), fc.integer({ min: -20, max: 20 })), { minLength: 3, maxLength: 12 });
+  const probe = fc.tuple(fc.integer({ min: -22, max: 22 }), fc.integer({ min: -22, max: 22 }));
+
+  it('point in ring (Hormann–Agathos) gives Clipper.PointInPolygon\'s answer, boundary included', () => {
+    fc.assert(fc.property(polygon, fc.array(probe, { minLength: 1, maxLength: 20 }), (pts, probes) => {
+      const ring = { x: Float64Array.from(pts.map((p) => p[0] * 1000)), y: Float64Array.from(pts.map((p) => p[1] * 1000)) };
+      const path = ringToPath(ring);
+      for (const [px, py] of probes) {
+        expect(pointInRing(px * 1000, py * 1000, ring)).toBe(ClipperLib.Clipper.PointInPolygon({ X: px * 1000, Y: py * 1000 }, path));
+      }
+    }), { numRuns: 400 });
+  });
+
+  it('ring area is Clipper.Area, and toRing rounds as toPath does', () => {
+    fc.assert(fc.property(fc.array(fc.tuple(fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true })), { minLength: 3, maxLength: 30 }), (pts) => {
+      const xs = pts.map((p) => p[0]), ys = pts.map((p) => p[1]);
+      const ring = toRing(xs, ys);
+      const path = toPath(xs, ys);
+      expect(ringToPath(ring)).toEqual(path);
+      expect(ringAreaMm2(ring)).toBeCloseTo(ClipperLib.Clipper.Area(path) / 1e6, 9);
+    }), { numRuns: 300 });
+  });
+
+  it('a 10 mm square ring: area 100 mm², perimeter 40 mm, inside, outside and on the edge (closed form)', () => {
+    const sq = toRing([0, 10, 10, 0], [0, 0, 10, 10]);
+    expect(ringAreaMm2(sq)).toBeCloseTo(100, 9);
+    expect(ringPerimeterMm(sq)).toBeCloseTo(40, 9);
+    expect(pointInRing(5000, 5000, sq)).toBe(1);
+    expect(pointInRing(15000, 5000, sq)).toBe(0);
+    expect(pointInRing(10000, 5000, sq)).toBe(-1);
+    expect(pointInRing(0, 0, sq)).toBe(-1);
   });
 });
