@@ -72,7 +72,27 @@ export class PlacedShape {
 
 /** the finished part of a loop and its holes: outline shrunk by the radius, grown holes taken off */
 export function partShape(node: LoopNode, holeNodes: LoopNode[]): PartShape {
-  const outline = offsetPaths([node.path], -node.radiusMm);
+  const r = node.radiusMm;
+  if (r > 0 && holeNodes.length > 0 && holeNodes.every((h) => h.radiusMm === r)) {
+    // one tool for the outline and the holes: the part is the region between them shrunk by the
+    // radius (erosion of A − H by a disc is A eroded minus H dilated), one offset of the loop
+    // with its holes turned clockwise, where Clipper's union resolves holes that reach the edge
+    const paths = [node.path];
+    for (const h of holeNodes) paths.push(h.path.slice().reverse());
+    const region = offsetPaths(paths, -r);
+    let areaMm2 = 0, perimeterMm = 0;
+    const outline: Paths = [], outlineAreas: number[] = [];
+    for (const p of region) {
+      const a = pathsAreaMm2([p]);
+      areaMm2 += a;
+      if (a <= 0) continue;
+      outline.push(p);
+      outlineAreas.push(a);
+      perimeterMm += pathPerimeterMm(p);
+    }
+    return { outline, outlineAreas, areaMm2, perimeterMm, bbox: pathsBBox(outline) };
+  }
+  const outline = offsetPaths([node.path], -r);
   const grown: Paths = [];
   for (const h of holeNodes) grown.push(...offsetPaths([h.path], h.radiusMm));
   const areaMm2 = materialArea(outline, grown);
