@@ -20,8 +20,12 @@ export class ArcChords {
     this.z = new Float64Array(len);
   }
 
-  /** flattens arc k of the table, from (x0, y0, z0) to (x1, y1, z1), within toleranceMm */
-  flatten(arcs: ArcTable, k: number, x0: number, y0: number, z0: number, x1: number, y1: number, z1: number, toleranceMm: number): void {
+  /**
+   * flattens arc k of the table, from (x0, y0, z0) to (x1, y1, z1) given in ends[0..5], within
+   * toleranceMm (the points come in an array: as arguments they would be boxed on every call)
+   */
+  flatten(arcs: ArcTable, k: number, ends: Float64Array, toleranceMm: number): void {
+    const x0 = ends[0], y0 = ends[1], z0 = ends[2], x1 = ends[3], y1 = ends[4], z1 = ends[5];
     const r = arcs.radius[k];
     const sweep = arcs.sweep[k];
     const plane = arcs.plane[k];

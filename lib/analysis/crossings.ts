@@ -3,8 +3,9 @@
 // are left out of the part list and reported once. Edges are walked cell by cell through a
 // uniform grid (Amanatides–Woo traversal) and tested pairwise within each cell; a crossing is
 // counted in the cell that holds it, so each pair counts once. Arc edges are tested by chord.
+// Lengths are written out (√(dx² + dy²), as vec.len2): an imported function is called through
+// the module loader's export getter, which V8 does not inline in these loops.
 import type { CutGraph } from './cut-graph';
-import { len2 } from './vec';
 
 export interface Crossing {
   x: number;
@@ -23,8 +24,9 @@ function alongArc(g: CutGraph, a: number, b: number, tol: number): boolean {
   if (r <= 0) return false;
   const band = r * (1 - Math.cos(g.eSweep[a] / 2)) + tol;
   const cx = g.eCx[a], cy = g.eCy[a];
-  const d0 = len2(g.vx[g.eu[b]] - cx, g.vy[g.eu[b]] - cy);
-  const d1 = len2(g.vx[g.ev[b]] - cx, g.vy[g.ev[b]] - cy);
+  const x0 = g.vx[g.eu[b]] - cx, y0 = g.vy[g.eu[b]] - cy, x1 = g.vx[g.ev[b]] - cx, y1 = g.vy[g.ev[b]] - cy;
+  const d0 = Math.sqrt(x0 * x0 + y0 * y0);
+  const d1 = Math.sqrt(x1 * x1 + y1 * y1);
   return Math.abs(d0 - r) <= band && Math.abs(d1 - r) <= band;
 }
 
@@ -37,10 +39,11 @@ interface Grid {
 }
 
 /**
- * the cells edge e passes through, in order: counted into counts[c + 1] (first pass), or with
- * items given, written at fill[c] (second pass); a plain function, not a callback per cell
+ * the cells edge e passes through, in order, written to out from index at (room for
+ * nx + ny + 5 is the caller's to make); returns the index after the last; a plain function,
+ * not a callback per cell
  */
-function walkCells(g: CutGraph, e: number, grid: Grid, counts: Int32Array | null, fill: Int32Array | null, items: Int32Array | null): void {
+function walkCells(g: CutGraph, e: number, grid: Grid, out: Int32Array, at: number): number {
   const { minX, minY, cell, nx, ny } = grid;
   const ax = (g.vx[g.eu[e]] - minX) / cell, ay = (g.vy[g.eu[e]] - minY) / cell;
   const bx = (g.vx[g.ev[e]] - minX) / cell, by = (g.vy[g.ev[e]] - minY) / cell;
@@ -51,17 +54,14 @@ function walkCells(g: CutGraph, e: number, grid: Grid, counts: Int32Array | null
   const tdx = dx !== 0 ? Math.abs(1 / dx) : Infinity, tdy = dy !== 0 ? Math.abs(1 / dy) : Infinity;
   let tx = dx !== 0 ? (dx > 0 ? cx + 1 - ax : ax - cx) * tdx : Infinity;
   let ty = dy !== 0 ? (dy > 0 ? cy + 1 - ay : ay - cy) * tdy : Infinity;
-  let c = cy * nx + cx;
-  if (items !== null) items[fill![c]++] = e;
-  else counts![c + 1]++;
+  out[at++] = cy * nx + cx;
   let guard = nx + ny + 4;
   while ((cx !== ex || cy !== ey) && guard-- > 0) {
     if (tx < ty) { cx += sx; tx += tdx; } else { cy += sy; ty += tdy; }
     if (cx < 0 || cy < 0 || cx >= nx || cy >= ny) break;
-    c = cy * nx + cx;
-    if (items !== null) items[fill![c]++] = e;
-    else counts![c + 1]++;
+    out[at++] = cy * nx + cx;
   }
+  return at;
 }
 
 /** `alive` marks the edges to test (dangling ends cannot bound a part and are left out) */
@@ -72,24 +72,43 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
   if (E < 2) return { crossed, crossings };
   const { vx, vy, eu, ev } = g;
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity, total = 0;
+  // each edge's length, once: a pair test needs both (an edge meets a few others per cell)
+  const lengths = new Float64Array(E);
   for (let e = 0; e < E; e++) {
     const ax = vx[eu[e]], ay = vy[eu[e]], bx = vx[ev[e]], by = vy[ev[e]];
     minX = Math.min(minX, ax, bx); maxX = Math.max(maxX, ax, bx);
     minY = Math.min(minY, ay, by); maxY = Math.max(maxY, ay, by);
-    total += len2(bx - ax, by - ay);
+    const len = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
+    lengths[e] = len;
+    total += len;
   }
   // about four cells per edge at most: a sparse nest over a wide area must not walk millions of empty cells
   const cell = Math.max(toleranceMm * 10, (total / E) / 2, Math.max(maxX - minX, maxY - minY) / 4096, Math.sqrt(((maxX - minX) * (maxY - minY)) / (4 * E)));
   const nx = Math.floor((maxX - minX) / cell) + 1;
   const ny = Math.floor((maxY - minY) / cell) + 1;
-  // two passes over the traversal: count, then fill (CSR)
-  const counts = new Int32Array(nx * ny + 1);
+  // one traversal per edge, its cells kept in order; then count them and fill the cells' lists (CSR)
   const grid: Grid = { minX, minY, cell, nx, ny };
-  for (let e = 0; e < E; e++) if (alive[e]) walkCells(g, e, grid, counts, null, null);
+  const room = nx + ny + 5;
+  let cells = new Int32Array(Math.max(1024, 4 * E));
+  const cellsFrom = new Int32Array(E + 1);
+  let w = 0;
+  for (let e = 0; e < E; e++) {
+    cellsFrom[e] = w;
+    if (!alive[e]) continue;
+    if (w + room > cells.length) {
+      const more = new Int32Array(Math.max(2 * cells.length, w + room));
+      more.set(cells.subarray(0, w));
+      cells = more;
+    }
+    w = walkCells(g, e, grid, cells, w);
+  }
+  cellsFrom[E] = w;
+  const counts = new Int32Array(nx * ny + 1);
+  for (let j = 0; j < w; j++) counts[cells[j] + 1]++;
   for (let c = 0; c < nx * ny; c++) counts[c + 1] += counts[c];
   const fill = counts.slice(0, nx * ny);
   const items = new Int32Array(counts[nx * ny]);
-  for (let e = 0; e < E; e++) if (alive[e]) walkCells(g, e, grid, null, fill, items);
+  for (let e = 0; e < E; e++) for (let j = cellsFrom[e]; j < cellsFrom[e + 1]; j++) items[fill[cells[j]]++] = e;
   let tests = 0;
   for (let c = 0; c < nx * ny && tests < MAX_PAIR_TESTS; c++) {
     const lo = counts[c], hi = counts[c + 1];
@@ -118,7 +137,7 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
         const t = ((bx - ax) * bdy - (by - ay) * bdx) / den;
         const u = ((bx - ax) * ady - (by - ay) * adx) / den;
         // proper crossings only: a touch within the tolerance of either end is a shared point
-        const la = len2(adx, ady), lb = len2(bdx, bdy);
+        const la = lengths[a], lb = lengths[b];
         if (t * la <= toleranceMm || (1 - t) * la <= toleranceMm || u * lb <= toleranceMm || (1 - u) * lb <= toleranceMm) continue;
         const px = ax + adx * t, py = ay + ady * t;
         if (px < cxLo || px >= cxLo + cell || py < cyLo || py >= cyLo + cell) continue;

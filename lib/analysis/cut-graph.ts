@@ -12,7 +12,6 @@ import { KeyTable } from './key-table';
 import { len2 } from './vec';
 
 const KEY_OFFSET = 2 ** 24;
-const KEY_SPAN = 2 ** 25;
 const KEY_LIMIT = KEY_OFFSET - 1;
 const SUB_ARC_RAD = Math.PI / 4;
 
@@ -111,18 +110,32 @@ export class CutGraph {
     this.vHead[v] = 2 * e + 1;
   }
 
-  private lastX = NaN;
-  private lastY = NaN;
+  /** the last point snapped (x, y) and its id: consecutive pieces share an end point */
+  private readonly last = new Float64Array([NaN, NaN]);
   private lastId = -1;
+  /** the lowest and highest Z of the cut being recorded (for newEdge and record) */
+  private readonly zr = new Float64Array(2);
+  /** scratch for a point of a sub-arc */
+  private readonly pt = new Float64Array(2);
 
-  private vertex(x: number, y: number): number {
+  /**
+   * The piece for piece(): x0 y0 z0 x1 y1 z1. The numbers of a piece or an arc go through
+   * these arrays rather than as arguments, which a call that is not inlined boxes one by one.
+   */
+  readonly pieceIo = new Float64Array(6);
+  /** the arc for arc(): x0 y0 x1 y1 z cx cy r a0 sweep (see addArc) */
+  readonly arcIo = new Float64Array(10);
+
+  /** the vertex at the point (io[at], io[at + 1]), snapped to the chain tolerance */
+  private vertex(io: Float64Array, at: number): number {
+    const x = io[at], y = io[at + 1];
+    const last = this.last;
     // consecutive pieces share an end point: skip the hash for it
-    if (x === this.lastX && y === this.lastY) return this.lastId;
+    if (x === last[0] && y === last[1]) return this.lastId;
     let qx = Math.round(x * this.invQ), qy = Math.round(y * this.invQ);
     qx = qx > KEY_LIMIT ? KEY_LIMIT : qx < -KEY_LIMIT ? -KEY_LIMIT : qx;
     qy = qy > KEY_LIMIT ? KEY_LIMIT : qy < -KEY_LIMIT ? -KEY_LIMIT : qy;
-    const key = (qx + KEY_OFFSET) * KEY_SPAN + (qy + KEY_OFFSET);
-    let id = this.vertexByKey.getOrSet(key, this.vCount);
+    let id = this.vertexByKey.getOrSet(qx + KEY_OFFSET, qy + KEY_OFFSET, this.vCount);
     if (id < 0) {
       id = this.vCount++;
       if (id === this.vx.length) this.growVertices();
@@ -130,28 +143,38 @@ export class CutGraph {
       this.vy[id] = y;
       this.vHead[id] = -1;
     }
-    this.lastX = x;
-    this.lastY = y;
+    last[0] = x;
+    last[1] = y;
     this.lastId = id;
     return id;
   }
 
   /** a straight piece lying wholly on one side of the through and band levels */
   addPiece(x0: number, y0: number, z0: number, x1: number, y1: number, z1: number, move: number, tool: number): void {
-    const a = this.vertex(x0, y0);
-    const b = this.vertex(x1, y1);
+    const p = this.pieceIo;
+    p[0] = x0; p[1] = y0; p[2] = z0; p[3] = x1; p[4] = y1; p[5] = z1;
+    this.piece(move, tool);
+  }
+
+  /** addPiece with the piece in pieceIo */
+  piece(move: number, tool: number): void {
+    const p = this.pieceIo;
+    const a = this.vertex(p, 0);
+    const b = this.vertex(p, 3);
     if (a === b) return;
+    const z0 = p[2], z1 = p[5];
     const u = a < b ? a : b;
     const v = a < b ? b : a;
-    const zLo = z0 < z1 ? z0 : z1;
-    const zHi = z0 < z1 ? z1 : z0;
+    const zr = this.zr;
+    zr[0] = z0 < z1 ? z0 : z1;
+    zr[1] = z0 < z1 ? z1 : z0;
     const through = (z0 + z1) * 0.5 <= this.throughZ;
     const e = this.findEdge(u, v, false);
     if (e < 0) {
-      this.newEdge(u, v, zLo, zHi, move, through ? move : -1, tool);
+      this.newEdge(u, v, move, through ? move : -1, tool);
       return;
     }
-    this.record(e, zLo, zHi, move, through, tool);
+    this.record(e, move, through, tool);
   }
 
   /**
@@ -159,17 +182,36 @@ export class CutGraph {
    * sweep, ending exactly at (x1, y1): added as sub-arcs of at most 45°
    */
   addArc(x0: number, y0: number, x1: number, y1: number, z: number, cx: number, cy: number, r: number, a0: number, sweep: number, move: number, tool: number): void {
+    const io = this.arcIo;
+    io[0] = x0; io[1] = y0; io[2] = x1; io[3] = y1; io[4] = z; io[5] = cx; io[6] = cy; io[7] = r; io[8] = a0; io[9] = sweep;
+    this.arc(move, tool);
+  }
+
+  /** addArc with the arc in arcIo */
+  arc(move: number, tool: number): void {
+    const io = this.arcIo;
+    const z = io[4], cx = io[5], cy = io[6], r = io[7], a0 = io[8], sweep = io[9];
     const n = Math.max(1, Math.ceil(Math.abs(sweep) / SUB_ARC_RAD - 1e-9));
     const through = z <= this.throughZ;
-    let a = this.vertex(x0, y0);
+    const pt = this.pt;
+    const zr = this.zr;
+    let a = this.vertex(io, 0);
     for (let k = 1; k <= n; k++) {
-      const b = k === n ? this.vertex(x1, y1) : this.vertex(cx + r * Math.cos(a0 + (sweep * k) / n), cy + r * Math.sin(a0 + (sweep * k) / n));
+      let b: number;
+      if (k === n) b = this.vertex(io, 2);
+      else {
+        pt[0] = cx + r * Math.cos(a0 + (sweep * k) / n);
+        pt[1] = cy + r * Math.sin(a0 + (sweep * k) / n);
+        b = this.vertex(pt, 0);
+      }
       if (a !== b) {
         const u = a < b ? a : b;
         const v = a < b ? b : a;
         const e = this.findEdge(u, v, true);
+        zr[0] = z;
+        zr[1] = z;
         if (e < 0) {
-          const id = this.newEdge(u, v, z, z, move, through ? move : -1, tool);
+          const id = this.newEdge(u, v, move, through ? move : -1, tool);
           const startAngle = a0 + (sweep * (k - 1)) / n;
           const step = sweep / n;
           this.eCx[id] = cx;
@@ -178,20 +220,21 @@ export class CutGraph {
           this.eAu[id] = a === u ? startAngle : startAngle + step;
           this.eSweep[id] = a === u ? step : -step;
         } else {
-          this.record(e, z, z, move, through, tool);
+          this.record(e, move, through, tool);
         }
       }
       a = b;
     }
   }
 
-  private newEdge(u: number, v: number, zLo: number, zHi: number, near: number, through: number, tool: number): number {
+  /** a new edge u–v cut from zr[0] up to zr[1] */
+  private newEdge(u: number, v: number, near: number, through: number, tool: number): number {
     const id = this.eCount++;
     if (id === this.eu.length) this.growEdges();
     this.eu[id] = u;
     this.ev[id] = v;
-    this.eZMin[id] = zLo;
-    this.eZTop[id] = zHi;
+    this.eZMin[id] = this.zr[0];
+    this.eZTop[id] = this.zr[1];
     this.eFirstNear[id] = near;
     this.eFirstThrough[id] = through;
     this.eTool[id] = tool;
@@ -204,7 +247,9 @@ export class CutGraph {
     return id;
   }
 
-  private record(e: number, zLo: number, zHi: number, move: number, through: boolean, tool: number): void {
+  /** another cut of edge e, from zr[0] up to zr[1] */
+  private record(e: number, move: number, through: boolean, tool: number): void {
+    const zLo = this.zr[0], zHi = this.zr[1];
     if (zLo < this.eZMin[e]) {
       this.eZMin[e] = zLo;
       this.eZTop[e] = zHi;
@@ -299,7 +344,9 @@ export class CutGraph {
       this.mergeRecord(f, src);
       return;
     }
-    const id = this.newEdge(u, v, this.eZMin[src], this.eZTop[src], this.eFirstNear[src], this.eFirstThrough[src], this.eTool[src]);
+    this.zr[0] = this.eZMin[src];
+    this.zr[1] = this.eZTop[src];
+    const id = this.newEdge(u, v, this.eFirstNear[src], this.eFirstThrough[src], this.eTool[src]);
     adjacency(u).push(id);
     adjacency(v).push(id);
   }

@@ -127,7 +127,8 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
       // at `to`, the edge we came in on sits at pos; take the next one clockwise
       const pos = eu[e] === to ? posAtU[e] : posAtV[e];
       const n = count[to];
-      const next = order[start[to] + ((pos - 1 + n) % n)];
+      // (pos − 1 + n) mod n, without an integer division per step
+      const next = order[start[to] + (pos > 0 ? pos - 1 : n - 1)];
       h = next * 2 + (eu[next] === to ? 0 : 1);
     }
     if (h !== h0 || area2 <= 1e-9) continue;

@@ -1,72 +1,104 @@
-// An open-addressing hash table from integer keys (below 2^53) to ids, on typed arrays: the
-// cut graph looks up millions of snapped points and edges, and a Map costs more per entry in
-// time and garbage.
+// An open-addressing hash table from pairs of integer keys (each in 0 … 2^31 − 2, such as a
+// snapped point's two grid coordinates) to ids, on typed arrays: the cut graph looks up
+// millions of snapped points, and a Map costs more per entry in time and garbage. The pair is
+// passed as two small integers, not one combined double: a double argument to a call that is
+// not inlined is boxed on every lookup.
+//
+// Most lookups are of a point not seen yet, at a slot not in the cache, so the table is kept
+// small: a slot is the pair's 32-bit hash (with its low bit set; 0 marks an empty slot, so a
+// new table needs no filling) and the entry's index, 8 bytes in one array; the keys and the id
+// sit in entry arrays filled in insertion order, read only when the hashes match.
 
 export class KeyTable {
-  private keys: Float64Array;
-  private vals: Int32Array;
+  /** slot i at 2i: hash | 1 (0 = empty), entry index */
+  private slots: Int32Array;
+  private entryA: Int32Array;
+  private entryB: Int32Array;
+  private entryVal: Int32Array;
   private mask: number;
+  /** 32 − log2(slots): the slot is the top bits of the hash */
+  private shift: number;
   private size = 0;
 
   constructor(capacity = 1 << 12) {
-    let n = 1;
-    while (n < capacity * 2) n <<= 1;
-    this.keys = new Float64Array(n).fill(-1);
-    this.vals = new Int32Array(n);
+    let n = 16, bits = 4;
+    while (n < capacity * 2) { n <<= 1; bits++; }
+    this.slots = new Int32Array(2 * n);
+    this.entryA = new Int32Array(n >> 1);
+    this.entryB = new Int32Array(n >> 1);
+    this.entryVal = new Int32Array(n >> 1);
     this.mask = n - 1;
+    this.shift = 32 - bits;
   }
 
-  private slot(key: number): number {
-    // keys are whole and non-negative: a power-of-two split is exact and cheaper than a float modulo
-    const hi = Math.floor(key * 2.3283064365386963e-10);
-    const lo = key - hi * 4294967296;
-    return (Math.imul(lo | 0, 0x9e3779b1) ^ Math.imul(hi | 0, 0x85ebca6b)) & this.mask;
+  /**
+   * multiplicative hashing (Knuth, TAOCP vol. 3, §6.4): the top bits of the product mix all
+   * the bits of both keys, so neighbouring grid points spread over the table
+   */
+  private static hash(a: number, b: number): number {
+    return Math.imul(Math.imul(a, 0x9e3779b1) ^ b, 0x85ebca6b) | 1;
   }
 
-  /** the id stored for key, or −1 */
-  get(key: number): number {
-    const keys = this.keys;
-    for (let i = this.slot(key); ; i = (i + 1) & this.mask) {
-      const k = keys[i];
-      if (k === key) return this.vals[i];
-      if (k === -1) return -1;
+  /** the id stored for (a, b), or −1 */
+  get(a: number, b: number): number {
+    const t = this.slots, mask = this.mask;
+    const h = KeyTable.hash(a, b);
+    for (let i = h >>> this.shift; ; i = (i + 1) & mask) {
+      const k = t[2 * i];
+      if (k === 0) return -1;
+      if (k === h) {
+        const e = t[2 * i + 1];
+        if (this.entryA[e] === a && this.entryB[e] === b) return this.entryVal[e];
+      }
     }
   }
 
-  set(key: number, val: number): void {
-    if ((this.size + 1) * 2 > this.keys.length) this.grow();
-    const keys = this.keys;
-    for (let i = this.slot(key); ; i = (i + 1) & this.mask) {
-      const k = keys[i];
-      if (k === key) { this.vals[i] = val; return; }
-      if (k === -1) { keys[i] = key; this.vals[i] = val; this.size++; return; }
+  /** the id stored for (a, b), or −1 after storing val under it (one probe sequence for both) */
+  getOrSet(a: number, b: number, val: number): number {
+    if ((this.size + 1) * 2 > this.mask + 1) this.grow();
+    const t = this.slots, mask = this.mask;
+    const h = KeyTable.hash(a, b);
+    for (let i = h >>> this.shift; ; i = (i + 1) & mask) {
+      const k = t[2 * i];
+      if (k === 0) {
+        const e = this.size++;
+        t[2 * i] = h;
+        t[2 * i + 1] = e;
+        this.entryA[e] = a;
+        this.entryB[e] = b;
+        this.entryVal[e] = val;
+        return -1;
+      }
+      if (k === h) {
+        const e = t[2 * i + 1];
+        if (this.entryA[e] === a && this.entryB[e] === b) return this.entryVal[e];
+      }
     }
-  }
-
-  /** the id stored for key, or −1 after storing val under it (one probe sequence for both) */
-  getOrSet(key: number, val: number): number {
-    if ((this.size + 1) * 2 > this.keys.length) this.grow();
-    const keys = this.keys;
-    for (let i = this.slot(key); ; i = (i + 1) & this.mask) {
-      const k = keys[i];
-      if (k === key) return this.vals[i];
-      if (k === -1) { keys[i] = key; this.vals[i] = val; this.size++; return -1; }
-    }
-  }
-
-  clear(): void {
-    this.keys = new Float64Array(16).fill(-1);
-    this.vals = new Int32Array(16);
-    this.mask = 15;
-    this.size = 0;
   }
 
   private grow(): void {
-    const oldK = this.keys, oldV = this.vals;
-    this.keys = new Float64Array(oldK.length * 2).fill(-1);
-    this.vals = new Int32Array(oldK.length * 2);
-    this.mask = this.keys.length - 1;
-    this.size = 0;
-    for (let i = 0; i < oldK.length; i++) if (oldK[i] !== -1) this.set(oldK[i], oldV[i]);
+    const n = 2 * (this.mask + 1);
+    const t = new Int32Array(2 * n);
+    this.mask = n - 1;
+    this.shift--;
+    // re-slot every entry: the old slots hold the hashes
+    const old = this.slots;
+    for (let j = 0; j < old.length; j += 2) {
+      const h = old[j];
+      if (h === 0) continue;
+      for (let i = h >>> this.shift; ; i = (i + 1) & this.mask) {
+        if (t[2 * i] === 0) { t[2 * i] = h; t[2 * i + 1] = old[j + 1]; break; }
+      }
+    }
+    this.slots = t;
+    this.entryA = grown(this.entryA, n >> 1);
+    this.entryB = grown(this.entryB, n >> 1);
+    this.entryVal = grown(this.entryVal, n >> 1);
   }
+}
+
+function grown(a: Int32Array, n: number): Int32Array {
+  const b = new Int32Array(n);
+  b.set(a);
+  return b;
 }

@@ -20,6 +20,16 @@ export interface CheckContext {
   toolDiameter: (tool: number) => number;
 }
 
+// Slots of ProgramChecks.st, the checks' running numbers, and of ProgramChecks.k, the limits
+// worked out once. Kept in typed arrays rather than fields: the pass stores into them on most
+// moves, and a double in an array is written in place, never boxed.
+const S_MIN_X = 0, S_MAX_X = 1, S_MIN_Y = 2, S_MAX_Y = 3, S_MIN_Z = 4, S_MAX_Z = 5;
+const S_PLUNGE = 6, S_FEED_RUN = 7, S_DIAMETER = 8;
+const K_TOL = 0, K_STOCK = 1, K_SHEET_LO = 2, K_SHEET_W = 3, K_SHEET_L = 4, K_SPOIL = 5;
+const K_FEED_X = 6, K_FEED_Y = 7, K_FEED_Z = 8, K_FEED_LOW = 9, K_ARC_FEED = 10;
+const K_SPAN_X = 11, K_SPAN_Y = 12, K_SPAN_Z = 13;
+const K_SIDE_LO = 14, K_SIDE_W = 15, K_SIDE_L = 16;
+
 export class ProgramChecks {
   readonly plungePoints: PlungePoint[] = [];
   private rapidRun = false;
@@ -27,49 +37,105 @@ export class ProgramChecks {
   private sheetRun = false;
   private spoilRun = false;
   private travelRun = false;
-  private feedRunValue = -1;
-  private plungeDepthMm = 0;
   private plungeReported = false;
-  private minX = Infinity; private maxX = -Infinity;
-  private minY = Infinity; private maxY = -Infinity;
-  private minZ = Infinity; private maxZ = -Infinity;
   private travelLine = 0;
-  // the tool rarely changes from one move to the next: keep its diameter rather than look it up per move
-  private lastTool = NaN;
-  private lastDiameterMm = 0;
+  // the tool rarely changes from one move to the next: keep its diameter (and the sheet limits
+  // that depend on it) rather than look it up per move
+  private lastTool = -1;
+  private readonly st = new Float64Array(9);
+  private readonly k = new Float64Array(17);
 
-  constructor(private readonly c: CheckContext, private readonly sink: FindingSink) {}
+  constructor(private readonly c: CheckContext, private readonly sink: FindingSink) {
+    const st = this.st, k = this.k;
+    st[S_MIN_X] = Infinity; st[S_MAX_X] = -Infinity;
+    st[S_MIN_Y] = Infinity; st[S_MAX_Y] = -Infinity;
+    st[S_MIN_Z] = Infinity; st[S_MAX_Z] = -Infinity;
+    st[S_FEED_RUN] = -1;
+    const tol = c.toleranceMm;
+    k[K_TOL] = tol;
+    if (c.topZ !== null) k[K_STOCK] = c.topZ - tol;
+    if (c.sheet) {
+      k[K_SHEET_LO] = -tol;
+      k[K_SHEET_W] = c.sheet.widthMm + tol;
+      k[K_SHEET_L] = c.sheet.lengthMm + tol;
+    }
+    if (c.bottomZ !== null) k[K_SPOIL] = c.bottomZ - c.spoilboardAllowanceMm - tol;
+    const mach = c.machine;
+    if (mach) {
+      k[K_FEED_X] = mach.maxFeed.x; k[K_FEED_Y] = mach.maxFeed.y; k[K_FEED_Z] = mach.maxFeed.z;
+      k[K_FEED_LOW] = Math.min(mach.maxFeed.x, mach.maxFeed.y, mach.maxFeed.z);
+      k[K_ARC_FEED] = Math.min(mach.maxFeed.x, mach.maxFeed.y);
+      k[K_SPAN_X] = mach.travel.x + tol; k[K_SPAN_Y] = mach.travel.y + tol; k[K_SPAN_Z] = mach.travel.z + tol;
+    }
+  }
 
+  /** the tool's diameter, and with a sheet the limits of cutting beyond it by more than its radius */
   private diameterOf(tool: number): number {
     if (tool !== this.lastTool) {
       this.lastTool = tool;
-      this.lastDiameterMm = this.c.toolDiameter(tool);
+      const d = this.c.toolDiameter(tool);
+      this.st[S_DIAMETER] = d;
+      const sheet = this.c.sheet;
+      if (sheet) {
+        const m = d / 2 + this.c.toleranceMm;
+        this.k[K_SIDE_LO] = -m;
+        this.k[K_SIDE_W] = sheet.widthMm + m;
+        this.k[K_SIDE_L] = sheet.lengthMm + m;
+      }
     }
-    return this.lastDiameterMm;
+    return this.st[S_DIAMETER];
   }
 
   /**
    * The coordinates of the move being checked, written by the caller before motion(): the
    * start x0 y0 z0 (0–2), the end x1 y1 z1 (3–5), the XY extent minX minY maxX maxY (6–9), the
-   * lowest Z (10) and the feed in mm/min (11). Numbers go through this array rather than as arguments, which a call
-   * that is not inlined would box one by one on every move.
+   * lowest Z (10) and the feed in mm/min (11); for coarseBoxSuffices, a box that holds the
+   * move's path (12–15, as 6–9). Numbers go through this array rather than as arguments, which
+   * a call that is not inlined would box one by one on every move.
    */
-  readonly m = new Float64Array(12);
+  readonly m = new Float64Array(16);
+
+  /**
+   * Whether motion() would find the same with the coarse box in m[12..15] as with the move's
+   * exact XY extent, for a move whose end points' box (m[6..9]) lies within the coarse box and
+   * the exact extent between the two: true when the end points alone already move in XY, and
+   * the coarse box lies within the sheet (so within reach of every sheet check) and within the
+   * travel box seen so far (so the span does not grow). Then either box gives every check the
+   * same answer, and the caller need not work out the exact one.
+   */
+  coarseBoxSuffices(tool: number): boolean {
+    const m = this.m, k = this.k, st = this.st, c = this.c;
+    const tol = k[K_TOL];
+    if (!(m[8] - m[6] > tol || m[9] - m[7] > tol)) return false;
+    const x0 = m[12], y0 = m[13], x1 = m[14], y1 = m[15];
+    if (c.sheet !== null) {
+      if (!(x0 >= k[K_SHEET_LO] && y0 >= k[K_SHEET_LO] && x1 <= k[K_SHEET_W] && y1 <= k[K_SHEET_L])) return false;
+      if (tool !== this.lastTool) this.diameterOf(tool);
+      if (!(x0 >= k[K_SIDE_LO] && y0 >= k[K_SIDE_LO] && x1 <= k[K_SIDE_W] && y1 <= k[K_SIDE_L])) return false;
+    }
+    const mach = c.machine;
+    if (mach) {
+      if (mach.workOffset) return false;
+      if (!(x0 >= st[S_MIN_X] && y0 >= st[S_MIN_Y] && x1 <= st[S_MAX_X] && y1 <= st[S_MAX_Y])) return false;
+    }
+    return true;
+  }
 
   /**
    * one motion move (its numbers in `m`): kind 0 rapid, 1 feed, 2 arc; drilling is true for the
    * legs of a canned cycle, which plunge straight by design
    */
   motion(line: number, kind: number, spindleOn: boolean, tool: number, drilling: boolean): void {
-    const m = this.m;
-    const x0 = m[0], y0 = m[1], z0 = m[2], x1 = m[3], y1 = m[4], z1 = m[5];
-    const bx0 = m[6], by0 = m[7], bx1 = m[8], by1 = m[9], zLo = m[10], feedMmPerMin = m[11];
+    const m = this.m, k = this.k, st = this.st;
+    const z0 = m[2], z1 = m[5];
+    const bx0 = m[6], by0 = m[7], bx1 = m[8], by1 = m[9], zLo = m[10];
     const c = this.c;
-    const tol = c.toleranceMm;
+    const tol = k[K_TOL];
     const top = c.topZ;
     const sheet = c.sheet;
-    const overSheet = sheet === null || (bx1 >= -tol && bx0 <= sheet.widthMm + tol && by1 >= -tol && by0 <= sheet.lengthMm + tol);
-    const inStockZ = top !== null && zLo < top - tol;
+    const overSheet = sheet === null || (bx1 >= k[K_SHEET_LO] && bx0 <= k[K_SHEET_W] && by1 >= k[K_SHEET_LO] && by0 <= k[K_SHEET_L]);
+    const stock = k[K_STOCK];
+    const inStockZ = top !== null && zLo < stock;
     const movesXY = bx1 - bx0 > tol || by1 - by0 > tol;
 
     if (top !== null) {
@@ -86,36 +152,35 @@ export class ProgramChecks {
       }
       this.spindleRun = dry;
       // entering the stock: plunge points and straight plunges
-      if (z0 >= top - tol && z1 < top - tol) {
-        this.plungePoints.push({ line, x: x1, y: y1, depthMm: top - z1, feedMmPerMin: kind === 0 ? 0 : feedMmPerMin, tool, ramp: movesXY, rapid: kind === 0 });
+      if (z0 >= stock && z1 < stock) {
+        this.plungePoints.push({ line, x: m[3], y: m[4], depthMm: top - z1, feedMmPerMin: kind === 0 ? 0 : m[11], tool, ramp: movesXY, rapid: kind === 0 });
       }
-      if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < top - tol) {
-        this.plungeDepthMm += Math.min(z0, top) - z1;
+      if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < stock) {
+        st[S_PLUNGE] += Math.min(z0, top) - z1;
         const d = this.diameterOf(tool);
-        if (!this.plungeReported && d > 0 && this.plungeDepthMm > d + tol) {
+        if (!this.plungeReported && d > 0 && st[S_PLUNGE] > d + tol) {
           this.plungeReported = true;
-          straightPlunge(this.sink, line, this.plungeDepthMm, d, tool);
+          straightPlunge(this.sink, line, st[S_PLUNGE], d, tool);
         }
       } else if (kind !== 1 || movesXY || z1 > z0 + EPS) {
-        this.plungeDepthMm = 0;
+        st[S_PLUNGE] = 0;
         this.plungeReported = false;
       }
     }
 
     // cutting outside the sheet
     if (sheet !== null && kind !== 0) {
-      const r = this.diameterOf(tool) / 2;
-      const m = r + tol;
-      const outside = inStockZ && (bx0 < -m || by0 < -m || bx1 > sheet.widthMm + m || by1 > sheet.lengthMm + m);
+      if (tool !== this.lastTool) this.diameterOf(tool);
+      const outside = inStockZ && (bx0 < k[K_SIDE_LO] || by0 < k[K_SIDE_LO] || bx1 > k[K_SIDE_W] || by1 > k[K_SIDE_L]);
       if (outside && !this.sheetRun) {
-        outsideSheet(this.sink, line, bx0 < -m ? bx0 : bx1, by0 < -m ? by0 : by1, sheet);
+        outsideSheet(this.sink, line, bx0 < k[K_SIDE_LO] ? bx0 : bx1, by0 < k[K_SIDE_LO] ? by0 : by1, sheet);
       }
       this.sheetRun = outside;
     }
     // too deep into the spoilboard
     const bottomZ = c.bottomZ;
     if (bottomZ !== null) {
-      const deep = zLo < bottomZ - c.spoilboardAllowanceMm - tol;
+      const deep = zLo < k[K_SPOIL];
       if (deep && !this.spoilRun) {
         spoilboardDepth(this.sink, line, zLo, bottomZ, c.spoilboardAllowanceMm);
       }
@@ -133,45 +198,62 @@ export class ProgramChecks {
         }
         this.travelRun = out;
       } else {
-        if (bx0 < this.minX) this.minX = bx0;
-        if (bx1 > this.maxX) this.maxX = bx1;
-        if (by0 < this.minY) this.minY = by0;
-        if (by1 > this.maxY) this.maxY = by1;
-        if (zLo < this.minZ) this.minZ = zLo;
+        // the span only grows: it can first exceed the travel only on a move that widens it
+        let grew = false;
+        if (bx0 < st[S_MIN_X]) { st[S_MIN_X] = bx0; grew = true; }
+        if (bx1 > st[S_MAX_X]) { st[S_MAX_X] = bx1; grew = true; }
+        if (by0 < st[S_MIN_Y]) { st[S_MIN_Y] = by0; grew = true; }
+        if (by1 > st[S_MAX_Y]) { st[S_MAX_Y] = by1; grew = true; }
+        if (zLo < st[S_MIN_Z]) { st[S_MIN_Z] = zLo; grew = true; }
         const zHi = z0 > z1 ? z0 : z1;
-        if (zHi > this.maxZ) this.maxZ = zHi;
-        if (this.travelLine === 0 && (this.maxX - this.minX > mach.travel.x + tol || this.maxY - this.minY > mach.travel.y + tol || this.maxZ - this.minZ > mach.travel.z + tol)) {
+        if (zHi > st[S_MAX_Z]) { st[S_MAX_Z] = zHi; grew = true; }
+        if (grew && this.travelLine === 0 && (st[S_MAX_X] - st[S_MIN_X] > k[K_SPAN_X] || st[S_MAX_Y] - st[S_MIN_Y] > k[K_SPAN_Y] || st[S_MAX_Z] - st[S_MIN_Z] > k[K_SPAN_Z])) {
           this.travelLine = line;
         }
       }
+      const feedMmPerMin = m[11];
       if (kind !== 0 && feedMmPerMin > 0) {
-        let limit: number;
-        if (kind === 1) {
-          const dx = Math.abs(x1 - x0), dy = Math.abs(y1 - y0), dz = Math.abs(z1 - z0);
-          const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
-          limit = Infinity;
-          if (len > EPS) {
-            if (dx > EPS) limit = Math.min(limit, (mach.maxFeed.x * len) / dx);
-            if (dy > EPS) limit = Math.min(limit, (mach.maxFeed.y * len) / dy);
-            if (dz > EPS) limit = Math.min(limit, (mach.maxFeed.z * len) / dz);
-          }
+        if (feedMmPerMin <= k[K_FEED_LOW]) {
+          // at most the lowest axis limit: no direction of the move can limit it (each axis'
+          // limit along the move, maxFeed·len/|d| with |d| ≤ len, is at least that axis' maxFeed)
+          st[S_FEED_RUN] = -1;
         } else {
-          limit = Math.min(mach.maxFeed.x, mach.maxFeed.y);
+          this.feedLimit(line, kind, feedMmPerMin);
         }
-        const clamped = feedMmPerMin > limit * (1 + 1e-6);
-        if (clamped && this.feedRunValue !== feedMmPerMin) {
-          feedClamped(this.sink, line, feedMmPerMin, limit);
-        }
-        this.feedRunValue = clamped ? feedMmPerMin : -1;
       }
     }
   }
 
+  /** the feed check of motion() past its fast path: the limit along the move in m */
+  private feedLimit(line: number, kind: number, feedMmPerMin: number): void {
+    const m = this.m, k = this.k;
+    let limit: number;
+    if (kind === 1) {
+      const dx = Math.abs(m[3] - m[0]), dy = Math.abs(m[4] - m[1]), dz = Math.abs(m[5] - m[2]);
+      const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
+      limit = Infinity;
+      if (len > EPS) {
+        if (dx > EPS) limit = Math.min(limit, (k[K_FEED_X] * len) / dx);
+        if (dy > EPS) limit = Math.min(limit, (k[K_FEED_Y] * len) / dy);
+        if (dz > EPS) limit = Math.min(limit, (k[K_FEED_Z] * len) / dz);
+      }
+    } else {
+      limit = k[K_ARC_FEED];
+    }
+    const clamped = feedMmPerMin > limit * (1 + 1e-6);
+    if (clamped && this.st[S_FEED_RUN] !== feedMmPerMin) {
+      feedClamped(this.sink, line, feedMmPerMin, limit);
+    }
+    this.st[S_FEED_RUN] = clamped ? feedMmPerMin : -1;
+  }
+
   finish(): void {
     const mach = this.c.machine;
+    const st = this.st;
     if (mach && !mach.workOffset && this.travelLine > 0) {
+      const spanX = st[S_MAX_X] - st[S_MIN_X], spanY = st[S_MAX_Y] - st[S_MIN_Y], spanZ = st[S_MAX_Z] - st[S_MIN_Z];
       this.sink.add('outside-travel', 'error', this.travelLine,
-        () => `The program spans ${fmt(this.maxX - this.minX, 0)} × ${fmt(this.maxY - this.minY, 0)} × ${fmt(this.maxZ - this.minZ, 0)} mm, more than the machine's travel of ${fmt(mach.travel.x, 0)} × ${fmt(mach.travel.y, 0)} × ${fmt(mach.travel.z, 0)} mm (first exceeded at line ${this.travelLine}): it cannot run wherever the work offset is set.`);
+        () => `The program spans ${fmt(spanX, 0)} × ${fmt(spanY, 0)} × ${fmt(spanZ, 0)} mm, more than the machine's travel of ${fmt(mach.travel.x, 0)} × ${fmt(mach.travel.y, 0)} × ${fmt(mach.travel.z, 0)} mm (first exceeded at line ${this.travelLine}): it cannot run wherever the work offset is set.`);
     }
   }
 }

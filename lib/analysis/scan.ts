@@ -7,6 +7,15 @@ import { BandCollector } from './band';
 import { CutGraph } from './cut-graph';
 import type { ProgramChecks } from './program-checks';
 
+// The kinds and flags as plain numbers: read through the import on every move, each access is a
+// call to the module loader's export getter, which V8 does not inline (tens of ms per pass).
+const RAPID: number = MoveKind.rapid;
+const FEED: number = MoveKind.feed;
+const ARC: number = MoveKind.arc;
+const DWELL: number = MoveKind.dwell;
+const SPINDLE_ON: number = MoveFlag.spindleOn;
+const CANNED: number = MoveFlag.cannedCycle;
+
 export interface ScanLevels {
   /** null when no sheet is given: no through-cut graph */
   throughZ: number | null;
@@ -25,8 +34,13 @@ export interface ScanResult {
   toolFirstLine: Map<number, number>;
 }
 
-/** XY extent of an arc: its end points and the axis crossings its sweep passes */
-function arcExtent(cx: number, cy: number, r: number, a0: number, sweep: number, out: Float64Array): void {
+/**
+ * XY extent of an arc: its end points and the axis crossings its sweep passes. In: centre x,
+ * centre y, radius, start angle, signed sweep in io[0..4]; out: minX minY maxX maxY in io[0..3]
+ * (numbers through the array: a call that is not inlined boxes each double argument)
+ */
+function arcExtent(io: Float64Array): void {
+  const cx = io[0], cy = io[1], r = io[2], a0 = io[3], sweep = io[4];
   const a1 = a0 + sweep;
   let minX = Math.min(cx + r * Math.cos(a0), cx + r * Math.cos(a1));
   let maxX = Math.max(cx + r * Math.cos(a0), cx + r * Math.cos(a1));
@@ -40,78 +54,155 @@ function arcExtent(cx: number, cy: number, r: number, a0: number, sweep: number,
     else if (q === 2) minX = cx - r;
     else minY = cy - r;
   }
-  out[0] = minX; out[1] = minY; out[2] = maxX; out[3] = maxY;
+  io[0] = minX; io[1] = minY; io[2] = maxX; io[3] = maxY;
+}
+
+/**
+ * A flat arc: arc c of the table, its move's start and end in m[0..5] and the XY box of its end
+ * points in m[6..9], which this widens to the arc's path. When the square about the circle,
+ * joined with the end points, already gives every check the answer the exact extent would
+ * (ProgramChecks.coarseBoxSuffices), that square is the box, with no sine or cosine; else the
+ * exact extent. With arcIo given, also lays the arc out for BandCollector.arc.
+ */
+function flatArc(arcs: MoveList['arcs'], c: number, m: Float64Array, ext: Float64Array, arcIo: Float64Array | null, checks: ProgramChecks, tool: number): void {
+  const px = m[0], py = m[1];
+  const cx = arcs.cx[c], cy = arcs.cy[c], r = arcs.radius[c], sw = arcs.sweep[c];
+  let a0 = NaN;
+  if (arcIo !== null) {
+    a0 = Math.atan2(py - cy, px - cx);
+    arcIo[0] = px; arcIo[1] = py; arcIo[2] = m[3]; arcIo[3] = m[4]; arcIo[4] = m[5];
+    arcIo[5] = cx; arcIo[6] = cy; arcIo[7] = r; arcIo[8] = a0; arcIo[9] = sw;
+  }
+  // the square about the circle holds the exact extent: each point is cx + r·cos(a) with
+  // cos(a) ≥ −1, and rounding keeps that order (the axis crossings are cx ± r exactly)
+  if (r >= 0) {
+    const lo = cx - r, hi = cx + r, loY = cy - r, hiY = cy + r;
+    m[12] = m[6] < lo ? m[6] : lo;
+    m[13] = m[7] < loY ? m[7] : loY;
+    m[14] = m[8] > hi ? m[8] : hi;
+    m[15] = m[9] > hiY ? m[9] : hiY;
+    if (checks.coarseBoxSuffices(tool)) {
+      m[6] = m[12]; m[7] = m[13]; m[8] = m[14]; m[9] = m[15];
+      return;
+    }
+  }
+  ext[0] = cx; ext[1] = cy; ext[2] = r; ext[3] = arcIo !== null ? a0 : Math.atan2(py - cy, px - cx); ext[4] = sw;
+  arcExtent(ext);
+  if (ext[0] < m[6]) m[6] = ext[0];
+  if (ext[1] < m[7]) m[7] = ext[1];
+  if (ext[2] > m[8]) m[8] = ext[2];
+  if (ext[3] > m[9]) m[9] = ext[3];
+}
+
+/**
+ * about how many edges (and points) the cut graph will get: a cheap pass over the moves
+ * counting the pieces near the bottom, so that its arrays are sized once rather than grown
+ * (each growth copies all fourteen of them)
+ */
+function graphCapacity(moves: MoveList, bandTop: number): number {
+  const { z, kind, arcs } = moves;
+  let pieces = 0;
+  let pz = moves.startZ;
+  for (let i = 0; i < moves.count; i++) {
+    const z1 = z[i];
+    // a feed into the band splits at most twice: at the band top and at the through level
+    if (kind[i] === FEED && (pz <= bandTop || z1 <= bandTop)) pieces += pz <= bandTop && z1 <= bandTop ? 1 : 3;
+    pz = z1;
+  }
+  for (let c = 0; c < arcs.count; c++) {
+    const i = arcs.move[c];
+    const z0 = i > 0 ? z[i - 1] : moves.startZ;
+    if (!(z0 <= bandTop || z[i] <= bandTop)) continue;
+    // flat arcs become sub-arcs of 45° at most; others, chords: a guess, the arrays still grow
+    const sub = arcs.plane[c] === 0 && z0 === z[i] ? Math.ceil(Math.abs(arcs.sweep[c]) / (Math.PI / 4)) : 16;
+    pieces += sub >= 1 && sub <= 1024 ? sub : 16;
+  }
+  return Math.max(1 << 14, pieces);
 }
 
 export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramChecks): ScanResult {
   const { x, y, z, kind, flags, tool, feed, line, arcs } = moves;
   const n = moves.count;
-  const graph = levels.throughZ !== null ? new CutGraph(levels.chainToleranceMm, levels.throughZ, Math.max(1 << 14, n >> 2)) : null;
+  const graph = levels.throughZ !== null ? new CutGraph(levels.chainToleranceMm, levels.throughZ, graphCapacity(moves, levels.bandTopZ ?? -Infinity)) : null;
   const band = graph && levels.bandTopZ !== null && levels.throughZ !== null
     ? new BandCollector(graph, levels.throughZ, levels.bandTopZ, levels.stockTopZ ?? Infinity, levels.tabMaxLengthMm)
     : null;
   const bandTop = levels.bandTopZ ?? -Infinity;
   const chords = new ArcChords();
-  const ext = new Float64Array(4);
+  const tolNear = levels.arcToleranceMm, tolFar = levels.arcToleranceMm * 10;
+  // Every double handed to a call that is not inlined goes through a typed array: as an
+  // argument V8 would box it, and a loop variable passed so turns into a boxed one throughout,
+  // allocating on every move. m holds the move for the checks (its start and end also feed
+  // the arc chords), seg a chord for the band, arcIo a flat arc for the band, ext the arc extent.
   const m = checks.m;
+  const seg = band ? band.io : new Float64Array(6);
+  const arcIo = band ? band.arcIo : new Float64Array(10);
+  const ext = new Float64Array(5);
   const toolFirstLine = new Map<number, number>();
   const firstThroughByTool = new Map<number, number>();
   let lastTool = -1;
-  let px = moves.startX, py = moves.startY, pz = moves.startZ;
+  let lastThroughTool = -1;
+  // the previous end point, kept in an array rather than loop variables: a loop variable that
+  // starts from a property (or from an on-stack-replacement entry) is typed loosely, and V8
+  // then boxes every double assigned to it, three per move
+  const prev = new Float64Array([moves.startX, moves.startY, moves.startZ]);
   let arcCursor = 0;
   const throughZ = levels.throughZ ?? -Infinity;
 
   for (let i = 0; i < n; i++) {
     const k = kind[i];
     const x1 = x[i], y1 = y[i], z1 = z[i];
-    if (k > MoveKind.arc) {
-      if (band && k !== MoveKind.dwell) band.breakRun();
-      px = x1; py = y1; pz = z1;
+    if (k > ARC) {
+      if (band && k !== DWELL) band.breakRun();
+      prev[0] = x1; prev[1] = y1; prev[2] = z1;
       continue;
     }
+    const px = prev[0], py = prev[1], pz = prev[2];
+    m[0] = px; m[1] = py; m[2] = pz; m[3] = x1; m[4] = y1; m[5] = z1;
     const t = tool[i];
-    const spindleOn = (flags[i] & MoveFlag.spindleOn) !== 0;
+    const fl = flags[i];
     let zLo = pz < z1 ? pz : z1;
     let bx0 = px < x1 ? px : x1, bx1 = px < x1 ? x1 : px;
     let by0 = py < y1 ? py : y1, by1 = py < y1 ? y1 : py;
-    if (k === MoveKind.rapid) {
+    if (k === RAPID) {
       if (band) band.breakRun();
     } else {
       if (t !== lastTool) {
         if (!toolFirstLine.has(t)) toolFirstLine.set(t, line[i]);
         lastTool = t;
       }
-      if (zLo <= throughZ && !firstThroughByTool.has(t)) firstThroughByTool.set(t, i);
-      if (k === MoveKind.feed) {
-        if (band) band.segment(px, py, pz, x1, y1, z1, i, t);
+      if (zLo <= throughZ && t !== lastThroughTool) {
+        // the map holds t from now on: look it up again only when the tool changes
+        if (!firstThroughByTool.has(t)) firstThroughByTool.set(t, i);
+        lastThroughTool = t;
+      }
+      if (k === FEED) {
+        // (a feed above the band with no tab rise pending is nothing to the band: skip the call)
+        if (band && (zLo <= bandTop || band.isArmed)) {
+          seg[0] = px; seg[1] = py; seg[2] = pz; seg[3] = x1; seg[4] = y1; seg[5] = z1;
+          band.segment(i, t);
+        }
       } else {
         while (arcCursor < arcs.count && arcs.move[arcCursor] < i) arcCursor++;
         const isArc = arcCursor < arcs.count && arcs.move[arcCursor] === i;
-        if (isArc && band && arcs.plane[arcCursor] === 0 && pz === z1 && z1 <= bandTop) {
-          // a flat arc near the bottom stays an arc in the graph
-          const cx = arcs.cx[arcCursor], cy = arcs.cy[arcCursor], r = arcs.radius[arcCursor], sw = arcs.sweep[arcCursor];
-          const a0 = Math.atan2(py - cy, px - cx);
-          band.arc(px, py, x1, y1, z1, cx, cy, r, a0, sw, i, t);
-          arcExtent(cx, cy, r, a0, sw, ext);
-          if (ext[0] < bx0) bx0 = ext[0];
-          if (ext[1] < by0) by0 = ext[1];
-          if (ext[2] > bx1) bx1 = ext[2];
-          if (ext[3] > by1) by1 = ext[3];
-        } else if (isArc && arcs.plane[arcCursor] === 0 && pz === z1 && !(band && band.isArmed)) {
-          // a flat arc away from the bottom, no tab rise pending: its exact extent is all the checks need
-          const cx = arcs.cx[arcCursor], cy = arcs.cy[arcCursor];
-          arcExtent(cx, cy, arcs.radius[arcCursor], Math.atan2(py - cy, px - cx), arcs.sweep[arcCursor], ext);
-          if (ext[0] < bx0) bx0 = ext[0];
-          if (ext[1] < by0) by0 = ext[1];
-          if (ext[2] > bx1) bx1 = ext[2];
-          if (ext[3] > by1) by1 = ext[3];
+        const flat = isArc && arcs.plane[arcCursor] === 0 && pz === z1;
+        const nearArc = flat && band !== null && z1 <= bandTop;
+        if (nearArc || (flat && !(band && band.isArmed))) {
+          // a flat arc near the bottom stays an arc in the graph; away from it, with no tab rise
+          // pending, its exact extent is all the checks need
+          m[6] = bx0; m[7] = by0; m[8] = bx1; m[9] = by1;
+          flatArc(arcs, arcCursor, m, ext, nearArc ? arcIo : null, checks, t);
+          if (nearArc && band) band.arc(i, t);
+          bx0 = m[6]; by0 = m[7]; bx1 = m[8]; by1 = m[9];
         } else if (isArc) {
           // exact chords near the bottom; coarser ones suffice for the extent checks
-          const near = zLo <= bandTop;
-          chords.flatten(arcs, arcCursor, px, py, pz, x1, y1, z1, near ? levels.arcToleranceMm : levels.arcToleranceMm * 10);
-          const cx = chords.x, cy = chords.y, cz = chords.z, m = chords.count;
-          for (let j = 1; j < m; j++) {
-            if (band) band.segment(cx[j - 1], cy[j - 1], cz[j - 1], cx[j], cy[j], cz[j], i, t);
+          chords.flatten(arcs, arcCursor, m, zLo <= bandTop ? tolNear : tolFar);
+          const cx = chords.x, cy = chords.y, cz = chords.z, cn = chords.count;
+          for (let j = 1; j < cn; j++) {
+            if (band) {
+              seg[0] = cx[j - 1]; seg[1] = cy[j - 1]; seg[2] = cz[j - 1]; seg[3] = cx[j]; seg[4] = cy[j]; seg[5] = cz[j];
+              band.segment(i, t);
+            }
             if (cx[j] < bx0) bx0 = cx[j];
             if (cx[j] > bx1) bx1 = cx[j];
             if (cy[j] < by0) by0 = cy[j];
@@ -119,14 +210,14 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
             if (cz[j] < zLo) zLo = cz[j];
           }
         } else if (band) {
-          band.segment(px, py, pz, x1, y1, z1, i, t);
+          seg[0] = px; seg[1] = py; seg[2] = pz; seg[3] = x1; seg[4] = y1; seg[5] = z1;
+          band.segment(i, t);
         }
       }
     }
-    m[0] = px; m[1] = py; m[2] = pz; m[3] = x1; m[4] = y1; m[5] = z1;
     m[6] = bx0; m[7] = by0; m[8] = bx1; m[9] = by1; m[10] = zLo; m[11] = feed[i];
-    checks.motion(line[i], k, spindleOn, t, (flags[i] & MoveFlag.cannedCycle) !== 0);
-    px = x1; py = y1; pz = z1;
+    checks.motion(line[i], k, (fl & SPINDLE_ON) !== 0, t, (fl & CANNED) !== 0);
+    prev[0] = x1; prev[1] = y1; prev[2] = z1;
   }
   checks.finish();
   return { graph, firstThroughByTool, toolFirstLine };

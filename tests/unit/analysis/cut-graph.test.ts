@@ -18,21 +18,24 @@ function square(g: CutGraph, x0: number, y0: number, side: number, z: number, mo
 }
 
 describe('KeyTable', () => {
-  it('getOrSet and get agree with a Map over many keys, through the table growing', () => {
+  it('getOrSet and get agree with a Map over many key pairs, through the table growing', () => {
     const t = new KeyTable(4);
+    // the reference: one Map keyed by the pair combined into a single exact number
     const ref = new Map<number, number>();
     let seed = 12345;
     const rnd = () => (seed = (Math.imul(seed, 1103515245) + 12345) >>> 0);
     for (let i = 0; i < 20000; i++) {
-      // keys below 2^53, many repeated
-      const key = (rnd() % 3000) * 2 ** 25 + (rnd() % 7);
+      // many repeated pairs; the second key up to 2^25 − 1, as the cut graph's snapped points
+      const a = rnd() % 3000, b = i % 5 === 0 ? 2 ** 25 - 1 - (rnd() % 7) : rnd() % 7;
+      const key = a * 2 ** 25 + b;
       const had = ref.get(key);
-      const got = t.getOrSet(key, i);
+      const got = t.getOrSet(a, b, i);
       expect(got).toBe(had ?? -1);
       if (had === undefined) ref.set(key, i);
     }
-    for (const [k, v] of ref) expect(t.get(k)).toBe(v);
-    expect(t.get(2 ** 52 + 1)).toBe(-1);
+    for (const [k, v] of ref) expect(t.get(Math.floor(k / 2 ** 25), k % 2 ** 25)).toBe(v);
+    expect(t.get(3001, 0)).toBe(-1);
+    expect(t.get(0, 8)).toBe(-1);
   });
 });
 

@@ -71,6 +71,45 @@ describe('program checks', () => {
     expect(f[0].severity).toBe('info');
   });
 
+  it('feed-clamped at the lowest axis limit: F10000 straight down is exactly the Z limit and not clamped; F10100 is', () => {
+    // along a pure Z move the limit is maxFeed.z = 10000 mm/min itself (one axis moves)
+    const w = new ProgramWriter();
+    w.rapid(0, 0, 5).feed(0, 0, -1, 10000).retract().feed(0, 0, -1, 10100).retract();
+    const f = ofKind(analyze(w.build(), job(18, 'tape-glue', { machine })), 'feed-clamped');
+    expect(f.map((x) => x.line)).toEqual([4]);
+  });
+
+  it('outside-sheet by an arc: its bulge, not its end points, decides; the square about its circle does not', () => {
+    // half circles of radius 15 about (1210, 100) from (1210, 85) to (1210, 115) on the 1220 mm
+    // wide sheet: counter-clockwise through the rightmost point X 1225, beyond the edge by more
+    // than the 3.175 mm radius of T1; clockwise through the leftmost point X 1195, inside
+    const half = (clockwise: boolean) => {
+      const w = new ProgramWriter();
+      w.rapid(1210, 85, 5).feed(1210, 85, -5, 600).arc(1210, 115, -5, 1210, 100, clockwise).retract();
+      return ofKind(analyze(w.build(), job(18)), 'outside-sheet');
+    };
+    const out = half(false);
+    expect(out).toHaveLength(1);
+    expect(out[0].line).toBe(3);
+    expect(out[0].message).toContain('X 1225.00');
+    expect(half(true)).toHaveLength(0);
+  });
+
+  it('outside-travel by an arc without a work offset: the span grows to the arc\'s bulge only', () => {
+    // travel X 1000: rapids span X 0–980, then a half circle of radius 25 about (980, 70) from
+    // (980, 45) to (980, 95): counter-clockwise it reaches X 1005 (span 1005 > 1000),
+    // clockwise X 955 (span stays 980)
+    const span = (clockwise: boolean) => {
+      const w = new ProgramWriter();
+      w.rapid(0, 0, 5).rapid(980, 45, 5).feed(980, 45, -1, 600).arc(980, 95, -1, 980, 70, clockwise).retract();
+      return ofKind(analyze(w.build(), job(18, 'tape-glue', { machine: { ...machine, travel: { ...machine.travel, x: 1000 } } })), 'outside-travel');
+    };
+    const out = span(false);
+    expect(out).toHaveLength(1);
+    expect(out[0].line).toBe(4);
+    expect(span(true)).toHaveLength(0);
+  });
+
   it('straight-plunge: 10 mm straight down with a 6.35 mm tool; a ramp is not', () => {
     const w = new ProgramWriter();
     w.rapid(10, 10, 5).feed(10, 10, -10, 600).retract();
