@@ -6,8 +6,9 @@
 // to the analysis is the whole area those sheets cover (a real program is one sheet), and the
 // machine's travel is widened to that area so the travel check runs without flagging every
 // sheet. Each sheet nests copies of 4 part designs, as a shop's job does, so the analysis
-// reuses the kerf offsets of repeated parts; the same figures follow for a program whose every
-// part is different (no reuse), and for a nest of 6,000 small parts from fixtures/nest-sheet.ts.
+// draws each distinct outline once and reuses the kerf offsets of repeated parts (lib/analysis
+// loop-shapes, shape-cache); the same figures follow for a program whose every part is
+// different (no reuse), and for a nest of 6,000 small parts from fixtures/nest-sheet.ts.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { generateNestSheet } from '@/fixtures/nest-sheet';
