@@ -8,7 +8,6 @@ import type { MachineLimits, PlungePoint, SheetSpec } from './types';
 
 const EPS = 1e-6;
 
-
 export interface CheckContext {
   sheet: SheetSpec | null;
   /** Z of the stock top, null when unknown */
