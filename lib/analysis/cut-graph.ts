@@ -274,6 +274,10 @@ export class CutGraph {
     if (E === 0) return;
     const deg = new Int32Array(V);
     for (let e = 0; e < E; e++) { deg[this.eu[e]]++; deg[this.ev[e]]++; }
+    // no vertex where three edges meet: no pass overlaps another, and the graph stays as it is
+    let junctions = false;
+    for (let v = 0; v < V && !junctions; v++) if (deg[v] >= 3) junctions = true;
+    if (!junctions) return;
     const start = new Int32Array(V + 1);
     for (let v = 0; v < V; v++) start[v + 1] = start[v] + deg[v];
     const fill = start.slice(0, V);
@@ -293,6 +297,7 @@ export class CutGraph {
     const queue: number[] = [];
     for (let v = 0; v < V; v++) if (deg[v] >= 3) queue.push(v);
     let budget = 4 * E + 1000;
+    let split = false;
     while (queue.length > 0 && budget-- > 0) {
       const a = queue.pop()!;
       const list = adjacency(a).filter((e) => this.eu[e] >= 0);
@@ -328,11 +333,12 @@ export class CutGraph {
           if (at >= 0) ql.splice(at, 1);
           queue.push(a, p);
           found = true;
+          split = true;
           break;
         }
       }
     }
-    this.compact();
+    if (split) this.compact();
   }
 
   /** the edge a–b with the cut record of edge src merged in */
