@@ -11,8 +11,6 @@
 // different (no reuse), and for a nest of 6,000 small parts from fixtures/nest-sheet.ts.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { setFlagsFromString } from 'node:v8';
-import { runInNewContext } from 'node:vm';
 import { generateNestSheet } from '@/fixtures/nest-sheet';
 import { BIRCH_18, generateProgram, NEST_SHEET, nestExtentMm, sheetsIn } from '@/fixtures/program-generator';
 import { DEFAULT_DIALECT } from '@/fixtures/program-writer';
@@ -24,12 +22,6 @@ import { parseMachineProfile } from '@/lib/validation/machine-profile';
 const LINES = 1_000_000;
 /** rounds of interpret → plan → analyze on the same program, after one warm-up round */
 const ROUNDS = 5;
-
-/** a full collection between timed steps (the V8 flag is switched on here, as a benchmark harness does) */
-const collect: () => void = (() => {
-  setFlagsFromString('--expose-gc');
-  return runInNewContext('gc') as () => void;
-})();
 
 function best<T>(runs: number, f: () => T): { ms: number; value: T } {
   let ms = Infinity;
@@ -60,26 +52,22 @@ export default async function bench(): Promise<void> {
 
   // The three steps timed back to back in each round, so that a round's ratio compares times
   // taken under the same load: on a shared machine the speed drifts by tens of per cent
-  // between rounds, and bests taken at different moments would mix those states. Each step
-  // starts from a collected heap, so none pays for collecting the garbage of the one before.
+  // between rounds, and bests taken at different moments would mix those states. (A forced
+  // collection between the steps was tried and left out: V8 then shrinks the heap, and the
+  // step after it pays for growing it again, which a pipeline run does not.)
   const rows: Array<{ interp: number; plan: number; analyze: number }> = [];
   let moves = interpret(text).moves;
   let out = analyze(moves, input);
   estimate(moves, parsed.profile); // warm-up round
   for (let r = 0; r < ROUNDS; r++) {
-    collect();
     const t0 = performance.now();
     moves = interpret(text).moves;
     const t1 = performance.now();
-    collect();
-    const t2 = performance.now();
     estimate(moves, parsed.profile);
-    const t3 = performance.now();
-    collect();
-    const t4 = performance.now();
+    const t2 = performance.now();
     out = analyze(moves, input);
-    const t5 = performance.now();
-    rows.push({ interp: t1 - t0, plan: t3 - t2, analyze: t5 - t4 });
+    const t3 = performance.now();
+    rows.push({ interp: t1 - t0, plan: t2 - t1, analyze: t3 - t2 });
   }
   const min = (k: 'interp' | 'plan' | 'analyze') => Math.min(...rows.map((x) => x[k]));
   const interp = { ms: min('interp') }, plan = { ms: min('plan') }, an = { ms: min('analyze') };
