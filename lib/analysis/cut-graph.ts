@@ -10,13 +10,13 @@
 // loops found), and tabs, ramps and helices become straight chords.
 import { KeyTable } from './key-table';
 import { len2 } from './vec';
+import { grownF64, grownI32 } from './typed-arrays';
 
 const KEY_OFFSET = 2 ** 24;
 const KEY_LIMIT = KEY_OFFSET - 1;
 const SUB_ARC_RAD = Math.PI / 4;
 
 export class CutGraph {
-  // typed arrays with spare room (grown by doubling): read them below edgeCount / vertexCount
   // typed arrays with spare room (grown by doubling): read them below edgeCount / vertexCount;
   // sized from the capacity hint so a large program does not copy them over and over
   vx: Float64Array;
@@ -392,16 +392,4 @@ export class CutGraph {
     const u = this.eu[e], v = this.ev[e];
     return len2(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
   }
-}
-
-function grownF64(a: Float64Array, n: number): Float64Array<ArrayBuffer> {
-  const b = new Float64Array(n);
-  b.set(a);
-  return b;
-}
-
-function grownI32(a: Int32Array, n: number): Int32Array<ArrayBuffer> {
-  const b = new Int32Array(n);
-  b.set(a);
-  return b;
 }

@@ -19,11 +19,6 @@ export interface PrunedGraph {
   adj: Int32Array;
 }
 
-/** edges left once dangling ends are pruned: 1 = part of a cycle or a path between cycles */
-export function liveEdges(g: CutGraph): Uint8Array {
-  return prune(g).alive;
-}
-
 /** made once and shared by the crossing check and the loop walk (the graph must not change between) */
 export function prune(g: CutGraph): PrunedGraph {
   const V = g.vertexCount;

@@ -156,14 +156,6 @@ export function differencePaths(subject: Paths, clip: Paths): Paths {
   return out;
 }
 
-export function unionPaths(paths: Paths): Paths {
-  const c = new ClipperLib.Clipper();
-  c.AddPaths(paths, ClipperLib.PolyType.ptSubject, true);
-  const out: Paths = [];
-  c.Execute(ClipperLib.ClipType.ctUnion, out, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
-  return out;
-}
-
 /** true when every turn of the closed path goes the same way (collinear points allowed) */
 export function isConvex(path: Path): boolean {
   const n = path.length;
@@ -201,21 +193,6 @@ export function pointInRegion(xMm: number, yMm: number, region: Paths, areas: nu
     if (pointInPath(xMm, yMm, region[i]) === 1) winding += areas[i] > 0 ? 1 : -1;
   }
   return winding > 0;
-}
-
-/** the point lies within distMm of the path's boundary */
-export function nearPath(xMm: number, yMm: number, path: Path, distMm: number): boolean {
-  const px = xMm * SCALE, py = yMm * SCALE, d2 = (distMm * SCALE) ** 2;
-  const n = path.length;
-  for (let i = 0, j = n - 1; i < n; j = i++) {
-    const ax = path[j].X, ay = path[j].Y, dx = path[i].X - ax, dy = path[i].Y - ay;
-    const len2 = dx * dx + dy * dy;
-    let t = len2 > 0 ? ((px - ax) * dx + (py - ay) * dy) / len2 : 0;
-    t = t < 0 ? 0 : t > 1 ? 1 : t;
-    const ex = ax + t * dx - px, ey = ay + t * dy - py;
-    if (ex * ex + ey * ey <= d2) return true;
-  }
-  return false;
 }
 
 export function pathsBBox(paths: Paths): BBox | null {

@@ -8,6 +8,7 @@
 // small: a slot is the pair's 32-bit hash (with its low bit set; 0 marks an empty slot, so a
 // new table needs no filling) and the entry's index, 8 bytes in one array; the keys and the id
 // sit in entry arrays filled in insertion order, read only when the hashes match.
+import { grownI32 } from './typed-arrays';
 
 export class KeyTable {
   /** slot i at 2i: hash | 1 (0 = empty), entry index */
@@ -91,14 +92,8 @@ export class KeyTable {
       }
     }
     this.slots = t;
-    this.entryA = grown(this.entryA, n >> 1);
-    this.entryB = grown(this.entryB, n >> 1);
-    this.entryVal = grown(this.entryVal, n >> 1);
+    this.entryA = grownI32(this.entryA, n >> 1);
+    this.entryB = grownI32(this.entryB, n >> 1);
+    this.entryVal = grownI32(this.entryVal, n >> 1);
   }
-}
-
-function grown(a: Int32Array, n: number): Int32Array {
-  const b = new Int32Array(n);
-  b.set(a);
-  return b;
 }

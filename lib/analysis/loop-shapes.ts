@@ -9,19 +9,15 @@
 // graph's vertices in the first place.
 import type { CutGraph } from './cut-graph';
 import type { GraphLoop } from './faces';
-import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, type Ring } from './geometry';
-import { lowest } from './shape-cache';
+import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from './geometry';
 
 // a module-level copy: an imported binding is read through an accessor on every use in the hot loops
 const GRID = SCALE;
 
+/** an outline shared by congruent copies (compared by identity) */
 export interface LoopShape {
-  /** index in LoopShapes.shapes: congruent copies share it */
-  id: number;
   /** counter-clockwise, on the integer grid, relative to the origin */
   ring: Ring;
-  /** index of the ring's lowest-leftmost point */
-  start: number;
   areaMm2: number;
   perimeterMm: number;
   /** grid box relative to the origin: minX, minY, maxX, maxY */
@@ -105,7 +101,7 @@ export class LoopShapes {
     }
     this.misses++;
     const id = this.shapes.length;
-    const shape = drawShape(id, g, loop, s, ox, oy, toleranceMm);
+    const shape = drawShape(g, loop, s, ox, oy, toleranceMm);
     this.shapes.push(shape);
     this.keys.push(this.keyOf(loop, s, ox, oy));
     if (list) list.push(id);
@@ -170,7 +166,7 @@ export class LoopShapes {
  * about a third of the sagitta either way, and the turns keep their sign, so a convex loop
  * stays convex.
  */
-function drawShape(id: number, g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number, toleranceMm: number): LoopShape {
+function drawShape(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number, toleranceMm: number): LoopShape {
   const { verts, edges } = loop;
   const n = verts.length;
   // first the chord count of each arc edge, so the points go straight into their arrays
@@ -206,7 +202,7 @@ function drawShape(id: number, g: CutGraph, loop: GraphLoop, s: number, ox: numb
       o++;
     }
   }
-  return shapeOfRing(id, { x, y });
+  return shapeOfRing({ x, y });
 }
 
 /** radius of the inner chord points that makes m chords of a sweep θ enclose the sector's area */
@@ -220,7 +216,7 @@ export function areaRadius(r: number, theta: number, m: number): number {
 }
 
 /** a shape from a ring already relative to its origin (turned counter-clockwise if it is not) */
-export function shapeOfRing(id: number, ring: Ring): LoopShape {
+export function shapeOfRing(ring: Ring): LoopShape {
   let area = ringAreaMm2(ring);
   if (area < 0) {
     reverseRing(ring);
@@ -235,26 +231,31 @@ export function shapeOfRing(id: number, ring: Ring): LoopShape {
     if (py < minY) minY = py;
     if (py > maxY) maxY = py;
   }
-  return { id, ring, start: lowest(ring), areaMm2: area, perimeterMm: ringPerimeterMm(ring), box: Float64Array.of(minX, minY, maxX, maxY) };
+  return { ring, areaMm2: area, perimeterMm: ringPerimeterMm(ring), box: Float64Array.of(minX, minY, maxX, maxY) };
 }
 
 /**
  * a placed loop from points in mm (tests and callers without a cut graph): its own shape, with
- * the origin at its lowest-leftmost grid point; `id` must not collide with a LoopShapes id
- * that it is compared with
+ * the origin at its lowest-leftmost grid point
  */
-export function placePoints(xs: ArrayLike<number>, ys: ArrayLike<number>, id = -1): PlacedLoop {
-  const n = xs.length;
-  const qx = new Float64Array(n), qy = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    qx[i] = Math.round(xs[i] * GRID);
-    qy[i] = Math.round(ys[i] * GRID);
-  }
-  const s = lowest({ x: qx, y: qy });
+export function placePoints(xs: ArrayLike<number>, ys: ArrayLike<number>): PlacedLoop {
+  const ring = toRing(xs, ys);
+  const qx = ring.x, qy = ring.y, n = qx.length;
+  const s = lowest(ring);
   const ox = qx[s], oy = qy[s];
   for (let i = 0; i < n; i++) {
     qx[i] -= ox;
     qy[i] -= oy;
   }
-  return { shape: shapeOfRing(id, { x: qx, y: qy }), ox, oy };
+  return { shape: shapeOfRing(ring), ox, oy };
+}
+
+/** index of the ring's lowest-leftmost point, a shape's origin */
+export function lowest(ring: Ring): number {
+  const { x, y } = ring;
+  let s = 0;
+  for (let i = 1; i < x.length; i++) {
+    if (y[i] < y[s] || (y[i] === y[s] && x[i] < x[s])) s = i;
+  }
+  return s;
 }

@@ -5,6 +5,7 @@
 import { nearRing, pointInRing, SCALE, type Path } from './geometry';
 import type { LoopShape } from './loop-shapes';
 import { AREA_CHORD_MM, type LoopInfo } from './loops';
+import { grownI32 } from './typed-arrays';
 import type { BBox } from './types';
 
 // a module-level copy: an imported binding is read through an accessor on every use
@@ -31,7 +32,7 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
   const all: LoopNode[] = new Array(infos.length);
   for (let i = 0; i < infos.length; i++) {
     const info = infos[i];
-    all[i] = new Node(info, info.shape, info.ox, info.oy, radiusOf(info.tool));
+    all[i] = loopNode(info, info.shape, info.ox, info.oy, radiusOf(info.tool));
   }
   all.sort(byAreaDescending);
   // a uniform grid of the kept loops' boxes: a loop's container must cover the cell of its
@@ -84,8 +85,8 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
     for (let r = ra; r <= rb; r++)
       for (let c = ca; c <= cb; c++) {
         if (entries === entryNode.length) {
-          entryNode = grown(entryNode);
-          entryNext = grown(entryNext);
+          entryNode = grownI32(entryNode, 2 * entryNode.length);
+          entryNext = grownI32(entryNext, 2 * entryNext.length);
         }
         const cell = r * side + c;
         entryNode[entries] = id;
@@ -99,12 +100,6 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
 function cellOf(v: number, lo: number, size: number, side: number): number {
   const k = Math.floor((v - lo) / size);
   return k < 0 ? 0 : k >= side ? side - 1 : k;
-}
-
-function grown(a: Int32Array): Int32Array<ArrayBuffer> {
-  const b = new Int32Array(a.length * 2);
-  b.set(a);
-  return b;
 }
 
 function byAreaDescending(a: LoopNode, b: LoopNode): number {

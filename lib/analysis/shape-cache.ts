@@ -5,7 +5,7 @@
 // the part's origin, and the radii. The key is hashed, and a hit is compared in full, so a hit
 // is always the same shape at another place (Clipper's answer there could differ only in its
 // 1 µm rounding).
-import type { Path, Ring } from './geometry';
+import type { Path } from './geometry';
 
 export interface ShapeKey {
   hash: number;
@@ -14,16 +14,6 @@ export interface ShapeKey {
   /** the grid point the key is relative to, in Clipper units */
   ox: number;
   oy: number;
-}
-
-/** index of the ring's lowest-leftmost vertex, where its key starts */
-export function lowest(ring: Ring): number {
-  const { x, y } = ring;
-  let s = 0;
-  for (let i = 1; i < x.length; i++) {
-    if (y[i] < y[s] || (y[i] === y[s] && x[i] < x[s])) s = i;
-  }
-  return s;
 }
 
 /** FNV-style hash of a key's numbers (whole numbers and radii in mm) */
