@@ -195,7 +195,8 @@ export function pointInRegion(xMm: number, yMm: number, region: Paths, areas: nu
   return winding > 0;
 }
 
-export function pathsBBox(paths: Paths): BBox | null {
+/** integer bounding box [minX, minY, maxX, maxY] of paths in grid units, null when empty */
+export function pathsGridBox(paths: Paths): number[] | null {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const p of paths) {
     for (const q of p) {
@@ -205,8 +206,12 @@ export function pathsBBox(paths: Paths): BBox | null {
       if (q.Y > maxY) maxY = q.Y;
     }
   }
-  if (minX > maxX) return null;
-  return { minX: minX / SCALE, minY: minY / SCALE, maxX: maxX / SCALE, maxY: maxY / SCALE };
+  return minX > maxX ? null : [minX, minY, maxX, maxY];
+}
+
+export function pathsBBox(paths: Paths): BBox | null {
+  const b = pathsGridBox(paths);
+  return b && { minX: b[0] / SCALE, minY: b[1] / SCALE, maxX: b[2] / SCALE, maxY: b[3] / SCALE };
 }
 
 export function pathPerimeterMm(path: Path): number {

@@ -1,15 +1,16 @@
 // The outline of each closed loop as a shape shared by its congruent copies. A nested sheet
 // cuts the same part many times over; the loops the cut graph gives for the copies differ only
-// by where they sit. So each loop is keyed, without allocating, by its graph vertices on
-// Clipper's micrometre grid relative to its lowest-leftmost vertex (the origin) and by its arc
-// edges' centres, radii and sweeps; a copy whose key matches in full shares the first copy's
-// ring, area, perimeter and box, and keeps only its origin. The points of a ring (arcs as
+// by where they sit. So each loop is keyed by its graph vertices on Clipper's micrometre grid
+// relative to its lowest-leftmost vertex (the origin) and by its arc edges' centres, radii and
+// sweeps, built in a scratch buffer and looked up in a ShapeCache; a copy whose key matches in
+// full shares the first copy's ring, area, perimeter and box, and keeps only its origin. The points of a ring (arcs as
 // chords) are drawn once per distinct shape. Two copies whose vertices round to the same
 // micrometres get the same ring, to the micrometre: below the chain tolerance that snaps the
 // graph's vertices in the first place.
 import type { CutGraph } from './cut-graph';
 import type { GraphLoop } from './faces';
 import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from './geometry';
+import { ShapeCache } from './shape-cache';
 
 // a module-level copy: an imported binding is read through an accessor on every use in the hot loops
 const GRID = SCALE;
@@ -34,11 +35,10 @@ export interface PlacedLoop {
 const ANGLE_UNITS = 1e9;
 
 export class LoopShapes {
-  readonly shapes: LoopShape[] = [];
-  private readonly byHash = new Map<number, number[]>();
-  private readonly keys: Float64Array[] = [];
-  hits = 0;
-  misses = 0;
+  private readonly cache = new ShapeCache<LoopShape>();
+  /** the key of the loop being placed, copied only when its shape is new, and its hash */
+  private key = new Float64Array(256);
+  private hash = 0;
   /** the graph's vertices rounded to the grid once, shared by every loop of it */
   private graph: CutGraph | null = null;
   private qx = new Float64Array(0);
@@ -48,6 +48,9 @@ export class LoopShapes {
   private aSweep = new Float64Array(0);
   private aCx = new Float64Array(0);
   private aCy = new Float64Array(0);
+
+  get hits(): number { return this.cache.hits; }
+  get misses(): number { return this.cache.misses; }
 
   private gridOf(g: CutGraph): void {
     if (this.graph === g && this.qx.length === g.vertexCount && this.aR.length === g.edgeCount) return;
@@ -89,71 +92,39 @@ export class LoopShapes {
       const qx = gx[verts[i]], qy = gy[verts[i]];
       if (qy < oy || (qy === oy && qx < ox)) { s = i; ox = qx; oy = qy; }
     }
-    const hash = this.hashOf(g, loop, s, ox, oy);
-    const list = this.byHash.get(hash);
-    if (list) {
-      for (const id of list) {
-        if (this.matches(this.keys[id], g, loop, s, ox, oy)) {
-          this.hits++;
-          return { shape: this.shapes[id], ox, oy };
-        }
-      }
-    }
-    this.misses++;
-    const id = this.shapes.length;
-    const shape = drawShape(g, loop, s, ox, oy, toleranceMm);
-    this.shapes.push(shape);
-    this.keys.push(this.keyOf(loop, s, ox, oy));
-    if (list) list.push(id);
-    else this.byHash.set(hash, [id]);
+    const data = this.keyOf(g, loop, s, ox, oy);
+    const k = { hash: this.hash, data, ox, oy };
+    const found = this.cache.find(k);
+    if (found) return { shape: found, ox, oy };
+    const shape = this.cache.put({ ...k, data: data.slice() }, drawShape(g, loop, s, ox, oy, toleranceMm));
     return { shape, ox, oy };
   }
 
-  private hashOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): number {
+  /**
+   * the loop's key in the scratch buffer, per edge from the origin: vertex dx, dy; radius,
+   * sweep as walked, centre dx, dy (zeros for a straight edge)
+   */
+  private keyOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): Float64Array {
     const { verts, edges } = loop;
     const n = verts.length;
-    const gx = this.qx, gy = this.qy, aR = this.aR;
-    let h = 0x811c9dc5 ^ n;
-    for (let c = 0, i = s; c < n; c++, i = i + 1 === n ? 0 : i + 1) {
-      const v = verts[i];
-      h = Math.imul(h ^ (gx[v] - ox), 0x01000193);
-      h = Math.imul(h ^ (gy[v] - oy), 0x01000193);
-      h = Math.imul(h ^ aR[edges[i]], 0x01000193);
-    }
-    return h & 0x3fffffff; // a small integer: Map keys and comparisons stay on the fast path
-  }
-
-  private matches(key: Float64Array, g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): boolean {
-    const { verts, edges } = loop;
-    const n = verts.length;
-    if (key.length !== 6 * n) return false;
+    if (this.key.length < 6 * n) this.key = new Float64Array(12 * n);
+    const key = this.key;
     const gx = this.qx, gy = this.qy, aR = this.aR, aSweep = this.aSweep, aCx = this.aCx, aCy = this.aCy, eu = g.eu;
+    // FNV-style over the whole numbers of the vertices and radii (the rest is compared on a hit)
+    let h = 0x811c9dc5 ^ n;
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
       const v = verts[i], e = edges[i];
-      if (key[o] !== gx[v] - ox || key[o + 1] !== gy[v] - oy || key[o + 2] !== aR[e]) return false;
-      if (aR[e] > 0 && (key[o + 3] !== (eu[e] === v ? aSweep[e] : -aSweep[e]) || key[o + 4] !== aCx[e] - ox || key[o + 5] !== aCy[e] - oy)) return false;
+      const r = aR[e], dx = gx[v] - ox, dy = gy[v] - oy;
+      key[o] = dx;
+      key[o + 1] = dy;
+      key[o + 2] = r;
+      key[o + 3] = r > 0 ? (eu[e] === v ? aSweep[e] : -aSweep[e]) : 0;
+      key[o + 4] = r > 0 ? aCx[e] - ox : 0;
+      key[o + 5] = r > 0 ? aCy[e] - oy : 0;
+      h = Math.imul(Math.imul(Math.imul(h ^ dx, 0x01000193) ^ dy, 0x01000193) ^ r, 0x01000193);
     }
-    return true;
-  }
-
-  /** per edge from the origin: vertex dx, dy; radius, sweep as walked, centre dx, dy (zeros for a straight edge) */
-  private keyOf(loop: GraphLoop, s: number, ox: number, oy: number): Float64Array {
-    const { verts, edges } = loop;
-    const n = verts.length;
-    const g = this.graph!;
-    const key = new Float64Array(6 * n);
-    for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
-      const v = verts[i], e = edges[i];
-      key[o] = this.qx[v] - ox;
-      key[o + 1] = this.qy[v] - oy;
-      key[o + 2] = this.aR[e];
-      if (this.aR[e] > 0) {
-        key[o + 3] = g.eu[e] === v ? this.aSweep[e] : -this.aSweep[e];
-        key[o + 4] = this.aCx[e] - ox;
-        key[o + 5] = this.aCy[e] - oy;
-      }
-    }
-    return key;
+    this.hash = h & 0x3fffffff; // a small integer: Map keys stay on the fast path
+    return key.subarray(0, 6 * n);
   }
 }
 

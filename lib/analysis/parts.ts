@@ -6,7 +6,7 @@
 // (shape-cache); a slug's exact area is worked out only when its verdict or its finding's
 // text needs it, from the bounds A − r·P ≤ slug ≤ A of the hole's interior A and perimeter P.
 import { FindingSink, fmt } from './findings';
-import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, SCALE, type Paths } from './geometry';
+import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, SCALE, type Paths } from './geometry';
 import { freedPieceHeld, freedPieceHold } from './hold';
 import type { LoopNode } from './nesting';
 import type { LoopShape } from './loop-shapes';
@@ -34,22 +34,22 @@ export interface PartContext {
   line: Uint32Array;
 }
 
-/** what the Clipper work gives for one part, relative to its key's origin */
+/** what the Clipper work gives for one part */
 interface PartShape {
   outline: Paths;
   outlineAreas: number[];
   areaMm2: number;
   perimeterMm: number;
-  bbox: BBox | null;
 }
 
+/** a part shape relative to its key's origin, with the outline's grid box */
 type RelShape = PartShape & { box: number[] | null };
 
 /**
  * a part shape at its place: the outline paths are only made if asked for (the cut-order
  * check). A class, not an object with closures: thousands are made per program.
  */
-export class PlacedShape {
+class PlacedShape {
   private paths: Paths | null = null;
   readonly bbox: BBox | null;
 
@@ -71,7 +71,7 @@ export class PlacedShape {
 }
 
 /** the finished part of a loop and its holes: outline shrunk by the radius, grown holes taken off */
-export function partShape(node: LoopNode, holeNodes: LoopNode[]): PartShape {
+function partShape(node: LoopNode, holeNodes: LoopNode[]): PartShape {
   const r = node.radiusMm;
   if (r > 0 && holeNodes.length > 0 && holeNodes.every((h) => h.radiusMm === r)) {
     // one tool for the outline and the holes: the part is the region between them shrunk by the
@@ -80,26 +80,20 @@ export function partShape(node: LoopNode, holeNodes: LoopNode[]): PartShape {
     const paths = [node.path];
     for (const h of holeNodes) paths.push(h.path.slice().reverse());
     const region = offsetPaths(paths, -r);
-    let areaMm2 = 0, perimeterMm = 0;
-    const outline: Paths = [], outlineAreas: number[] = [];
-    for (const p of region) {
-      const a = pathsAreaMm2([p]);
-      areaMm2 += a;
-      if (a <= 0) continue;
-      outline.push(p);
-      outlineAreas.push(a);
-      perimeterMm += pathPerimeterMm(p);
-    }
-    return { outline, outlineAreas, areaMm2, perimeterMm, bbox: pathsBBox(outline) };
+    return withOutline(region.filter((p) => pathsAreaMm2([p]) > 0), pathsAreaMm2(region));
   }
   const outline = offsetPaths([node.path], -r);
   const grown: Paths = [];
   for (const h of holeNodes) grown.push(...offsetPaths([h.path], h.radiusMm));
-  const areaMm2 = materialArea(outline, grown);
+  return withOutline(outline, materialArea(outline, grown));
+}
+
+/** the part's outline with each path's signed area, and the perimeter of its outer paths */
+function withOutline(outline: Paths, areaMm2: number): PartShape {
   const outlineAreas = outline.map((p) => pathsAreaMm2([p]));
   let perimeterMm = 0;
   outline.forEach((p, i) => { if (outlineAreas[i] > 0) perimeterMm += pathPerimeterMm(p); });
-  return { outline, outlineAreas, areaMm2, perimeterMm, bbox: pathsBBox(outline) };
+  return { outline, outlineAreas, areaMm2, perimeterMm };
 }
 
 /**
@@ -145,7 +139,7 @@ export class PartShapes {
     if (!rel) {
       const s = partShape(node, holeNodes);
       const outline = s.outline.map((p) => translatePath(p, -k.ox, -k.oy));
-      rel = this.parts.put(k, { ...s, outline, box: intBox(outline) });
+      rel = this.parts.put(k, { ...s, outline, box: pathsGridBox(outline) });
     }
     return new PlacedShape(rel, k.ox, k.oy);
   }
@@ -277,19 +271,6 @@ function materialArea(outline: Paths, grown: Paths): number {
     return pathsAreaMm2(outline) - pathsAreaMm2(grown);
   }
   return pathsAreaMm2(differencePaths(outline, grown));
-}
-
-/** integer bounding box [minX, minY, maxX, maxY] of paths in Clipper units, null when empty */
-function intBox(paths: Paths): number[] | null {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of paths)
-    for (const q of p) {
-      if (q.X < minX) minX = q.X;
-      if (q.X > maxX) maxX = q.X;
-      if (q.Y < minY) minY = q.Y;
-      if (q.Y > maxY) maxY = q.Y;
-    }
-  return minX > maxX ? null : [minX, minY, maxX, maxY];
 }
 
 function disjointBoxes(paths: Paths): boolean {
