@@ -3,6 +3,7 @@
 // band's top, and the rises between two through cuts of one pass (tabs), which are held back
 // until the tool comes down through again and dropped if it leaves the stock first.
 import type { CutGraph } from './cut-graph';
+import { grownF64 } from './typed-arrays';
 
 export class BandCollector {
   private armed = false;
@@ -120,11 +121,7 @@ export class BandCollector {
       this.breakRun();
       return;
     }
-    if (this.pendingCount + 8 > this.pending.length) {
-      const more = new Float64Array(2 * this.pending.length);
-      more.set(this.pending);
-      this.pending = more;
-    }
+    if (this.pendingCount + 8 > this.pending.length) this.pending = grownF64(this.pending, 2 * this.pending.length);
     const q = this.pending, at = this.pendingCount;
     q[at] = p[0]; q[at + 1] = p[1]; q[at + 2] = p[2]; q[at + 3] = p[3]; q[at + 4] = p[4]; q[at + 5] = p[5];
     q[at + 6] = move; q[at + 7] = tool;

@@ -6,6 +6,7 @@
 // Lengths are written out (√(dx² + dy²), as vec.len2): an imported function is called through
 // the module loader's export getter, which V8 does not inline in these loops.
 import type { CutGraph } from './cut-graph';
+import { grownI32 } from './typed-arrays';
 
 export interface Crossing {
   x: number;
@@ -96,9 +97,7 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
     cellsFrom[e] = w;
     if (!alive[e]) continue;
     if (w + room > cells.length) {
-      const more = new Int32Array(Math.max(2 * cells.length, w + room));
-      more.set(cells.subarray(0, w));
-      cells = more;
+      cells = grownI32(cells, Math.max(2 * cells.length, w + room));
     }
     w = walkCells(g, e, grid, cells, w);
   }

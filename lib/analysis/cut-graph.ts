@@ -14,7 +14,8 @@ import { grownF64, grownI32 } from './typed-arrays';
 
 const KEY_OFFSET = 2 ** 24;
 const KEY_LIMIT = KEY_OFFSET - 1;
-const SUB_ARC_RAD = Math.PI / 4;
+/** the largest sweep of one arc edge in the graph (a longer flat arc is split) */
+export const SUB_ARC_RAD = Math.PI / 4;
 
 export class CutGraph {
   // typed arrays with spare room (grown by doubling): read them below edgeCount / vertexCount;

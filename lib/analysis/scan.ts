@@ -4,7 +4,7 @@
 import { MoveFlag, MoveKind, type MoveList } from '@/lib/gcode/move-list';
 import { ArcChords } from './arc';
 import { BandCollector } from './band';
-import { CutGraph } from './cut-graph';
+import { CutGraph, SUB_ARC_RAD } from './cut-graph';
 import type { ProgramChecks } from './program-checks';
 
 // The kinds and flags as plain numbers: read through the import on every move, each access is a
@@ -113,8 +113,8 @@ function graphCapacity(moves: MoveList, bandTop: number): number {
     const i = arcs.move[c];
     const z0 = i > 0 ? z[i - 1] : moves.startZ;
     if (!(z0 <= bandTop || z[i] <= bandTop)) continue;
-    // flat arcs become sub-arcs of 45° at most; others, chords: a guess, the arrays still grow
-    const sub = arcs.plane[c] === 0 && z0 === z[i] ? Math.ceil(Math.abs(arcs.sweep[c]) / (Math.PI / 4)) : 16;
+    // flat arcs become sub-arcs of SUB_ARC_RAD at most; others, chords: a guess, the arrays still grow
+    const sub = arcs.plane[c] === 0 && z0 === z[i] ? Math.ceil(Math.abs(arcs.sweep[c]) / SUB_ARC_RAD) : 16;
     pieces += sub >= 1 && sub <= 1024 ? sub : 16;
   }
   return Math.max(1 << 14, pieces);
