@@ -103,15 +103,18 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
   // walk faces over half-edges: h = 2e (u→v) or 2e+1 (v→u)
   const used = new Uint8Array(2 * E);
   const loops: GraphLoop[] = [];
+  // every half-edge is walked once, so the walks fit one after another in 2E slots: a loop's
+  // arrays are views of these, not copies with a buffer each
   const vs = new Int32Array(2 * E);
   const es = new Int32Array(2 * E);
+  let off = 0;
   for (let h0 = 0; h0 < 2 * E; h0++) {
     const e0 = h0 >> 1;
     if (!alive[e0] || used[h0]) continue;
-    let len = 0;
+    let len = off;
     let h = h0;
     let area2 = 0;
-    while (!used[h] && len < 2 * E) {
+    while (!used[h]) {
       used[h] = 1;
       const e = h >> 1;
       const from = h & 1 ? ev[e] : eu[e];
@@ -127,7 +130,8 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
       h = next * 2 + (eu[next] === to ? 0 : 1);
     }
     if (h !== h0 || area2 <= 1e-9) continue;
-    loops.push({ verts: vs.slice(0, len), edges: es.slice(0, len) });
+    loops.push({ verts: vs.subarray(off, len), edges: es.subarray(off, len) });
+    off = len;
   }
   return loops;
 }

@@ -22,6 +22,7 @@ import type { AnalysisInput, AnalysisPart, AnalysisResult, SheetSpec, ToolSpec }
 export type * from './types';
 export { DEFAULT_SETTINGS, resolveSettings, type AnalysisSettings } from './settings';
 export { vacuumLateralHoldN, vacuumNormalForceN } from './hold';
+export { PlungePoints } from './plunge-points';
 
 export const ANALYSIS_NOTE =
   'These checks are an aid, not a guarantee: the operator, the machine\'s manual, the shop\'s safety rules and local codes decide whether a program is safe to run.';

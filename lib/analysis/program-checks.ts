@@ -4,7 +4,8 @@
 // A fault repeated on consecutive moves is reported once, at its first line.
 import type { FindingSink } from './findings';
 import { fmt } from './findings';
-import type { MachineLimits, PlungePoint, SheetSpec } from './types';
+import { PlungePoints } from './plunge-points';
+import type { MachineLimits, SheetSpec } from './types';
 
 const EPS = 1e-6;
 
@@ -30,7 +31,7 @@ const K_SPAN_X = 11, K_SPAN_Y = 12, K_SPAN_Z = 13;
 const K_SIDE_LO = 14, K_SIDE_W = 15, K_SIDE_L = 16;
 
 export class ProgramChecks {
-  readonly plungePoints: PlungePoint[] = [];
+  readonly plungePoints = new PlungePoints();
   private rapidRun = false;
   private spindleRun = false;
   private sheetRun = false;
@@ -152,7 +153,9 @@ export class ProgramChecks {
       this.spindleRun = dry;
       // entering the stock: plunge points and straight plunges
       if (z0 >= stock && z1 < stock) {
-        this.plungePoints.push({ line, x: m[3], y: m[4], depthMm: top - z1, feedMmPerMin: kind === 0 ? 0 : m[11], tool, ramp: movesXY, rapid: kind === 0 });
+        const pp = this.plungePoints, io = pp.io;
+        io[0] = m[3]; io[1] = m[4]; io[2] = top - z1; io[3] = kind === 0 ? 0 : m[11];
+        pp.push(line, tool, movesXY, kind === 0);
       }
       if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < stock) {
         st[S_PLUNGE] += Math.min(z0, top) - z1;

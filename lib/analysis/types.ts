@@ -1,5 +1,6 @@
 // Input and output shapes of the through-cut and program checks (lib/analysis). Lengths mm,
 // areas mm², forces N, pressure kPa below atmosphere.
+import type { PlungePoints } from './plunge-points';
 import type { AnalysisSettings } from './settings';
 
 export type HoldDownMethod = 'vacuum' | 'tape-glue' | 'clamps' | 'tabs' | 'skin';
@@ -138,6 +139,7 @@ export interface AnalysisSummary {
 export interface AnalysisResult {
   parts: AnalysisPart[];
   findings: Finding[];
-  plungePoints: PlungePoint[];
+  /** in columns (see plunge-points.ts): at(i), for…of, toArray(), JSON.stringify */
+  plungePoints: PlungePoints;
   summary: AnalysisSummary;
 }

@@ -48,7 +48,7 @@ export function runEstimate(text: string, profile: MachineProfile, job: Estimate
     diagnostics: interpretation.diagnostics,
     extraFindings: checks.findings,
     parts: checks.parts,
-    checks: { ...summary, holdDownAssumed: job.hold === null, plungePoints: checks.plungePoints },
+    checks: { ...summary, holdDownAssumed: job.hold === null, plungePoints: checks.plungePoints.toArray() },
   });
   return { report, interpretation, estimate: est, checks };
 }

@@ -119,8 +119,8 @@ describe('program checks', () => {
     expect(f).toHaveLength(1);
     expect(f[0].line).toBe(2);
     expect(r.plungePoints).toHaveLength(2);
-    expect(r.plungePoints[0]).toMatchObject({ line: 2, x: 10, y: 10, depthMm: 10, feedMmPerMin: 600, ramp: false });
-    expect(r.plungePoints[1]).toMatchObject({ line: 6, x: 150, depthMm: 10, ramp: true });
+    expect(r.plungePoints.at(0)).toMatchObject({ line: 2, x: 10, y: 10, depthMm: 10, feedMmPerMin: 600, ramp: false });
+    expect(r.plungePoints.at(1)).toMatchObject({ line: 6, x: 150, depthMm: 10, ramp: true });
   });
 
   it('straight-plunge: a G81 drilling cycle plunges straight by design and is not reported; the same plunge by G1 is', () => {
