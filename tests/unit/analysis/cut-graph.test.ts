@@ -37,6 +37,25 @@ describe('KeyTable', () => {
     expect(t.get(3001, 0)).toBe(-1);
     expect(t.get(0, 8)).toBe(-1);
   });
+
+  it('keys crowded into one cell fill its page and go on in the overflow, still agreeing with a Map', () => {
+    const t = new KeyTable(1 << 12);
+    const ref = new Map<number, number>();
+    let seed = 777;
+    const rnd = () => (seed = (Math.imul(seed, 1103515245) + 12345) >>> 0);
+    for (let i = 0; i < 5000; i++) {
+      // four in five keys inside one 2^13 cell (one page), the rest anywhere
+      const crowded = i % 5 !== 0;
+      const a = crowded ? 2 ** 24 + (rnd() % 90) : rnd() % 2 ** 26, b = crowded ? 2 ** 24 + (rnd() % 90) : rnd() % 2 ** 26;
+      const key = a * 2 ** 26 + b;
+      const had = ref.get(key);
+      expect(t.getOrSet(a, b, i)).toBe(had ?? -1);
+      if (had === undefined) ref.set(key, i);
+    }
+    expect(ref.size).toBeGreaterThan(2000);
+    for (const [k, v] of ref) expect(t.get(Math.floor(k / 2 ** 26), k % 2 ** 26)).toBe(v);
+    expect(t.get(2 ** 24 + 95, 2 ** 24)).toBe(-1);
+  });
 });
 
 describe('CutGraph', () => {
