@@ -8,8 +8,9 @@ const nextConfig = {
   experimental: {
     authInterrupts: true,
   },
-  // Native MariaDB driver and bcrypt stay as Node modules on the server.
-  serverExternalPackages: ['mysql2', 'bcryptjs'],
+  // Native MariaDB driver and bcrypt stay as Node modules on the server, and so does the
+  // analysis's Clipper build, which finds and instantiates its WebAssembly at run time.
+  serverExternalPackages: ['mysql2', 'bcryptjs', 'js-angusj-clipper'],
 };
 
 export default nextConfig;

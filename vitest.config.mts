@@ -13,7 +13,13 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', environment: 'node', include: ['tests/unit/**/*.test.ts'], testTimeout: 60_000 },
+        test: {
+          name: 'unit',
+          environment: 'node',
+          include: ['tests/unit/**/*.test.ts'],
+          setupFiles: ['tests/unit/setup-analysis.ts'],
+          testTimeout: 60_000,
+        },
       },
       {
         resolve: { alias },

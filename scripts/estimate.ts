@@ -5,6 +5,7 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import { loadAnalysis } from '@/lib/analysis';
 import { runEstimate } from '@/lib/estimate/run-estimate';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
 import { parseEstimateArgs } from './estimate-args';
@@ -24,7 +25,9 @@ function readOrFail(file: string, what: string): Buffer {
   }
 }
 
-function main(): void {
+async function main(): Promise<void> {
+  // started first: the WebAssembly compiles while the files are read and hashed
+  const analysisReady = loadAnalysis();
   const parsed = parseEstimateArgs(process.argv.slice(2));
   if (!parsed.ok) fail(parsed.message);
   const args = parsed.args;
@@ -41,12 +44,9 @@ function main(): void {
 
   const bytes = readOrFail(args.file, 'program');
   const sha256 = createHash('sha256').update(bytes).digest('hex');
+  await analysisReady;
   const { report } = runEstimate(bytes.toString('utf8'), profile.profile, args, { name: path.basename(args.file), sha256 });
   process.stdout.write(args.json ? `${JSON.stringify(report)}\n` : `${formatEstimateTable(report, profile.profile.name, profile.profile.timeFactor)}\n`);
 }
 
-try {
-  main();
-} catch (err) {
-  fail(`internal error: ${(err as Error).message}`, 1);
-}
+main().catch((err: unknown) => fail(`internal error: ${(err as Error).message}`, 1));

@@ -1,17 +1,44 @@
-// Polygon work for the through-cut analysis, delegated to Clipper 6 (`clipper-lib`): offsets
-// by the tool radius (round joins, so the result is the region a round cutter leaves),
-// boolean differences, signed areas and point-in-polygon. Clipper works on integer points, so
-// millimetres are scaled to micrometres here and back.
-import ClipperLib from 'clipper-lib';
-import type { IntPoint, Path, Paths } from 'clipper-lib';
+// Polygon work for the through-cut analysis, delegated to Clipper 6.4.2 compiled to WebAssembly
+// (`js-angusj-clipper`): offsets by the tool radius (round joins, so the result is the region a
+// round cutter leaves), boolean differences, signed areas and point-in-polygon. Clipper works on
+// integer points, so millimetres are scaled to micrometres here and back. The WebAssembly module
+// loads asynchronously: loadClipper() once, then every helper here is synchronous.
+import {
+  ClipperError, ClipType, EndType, JoinType, loadNativeClipperLibInstanceAsync, NativeClipperLibRequestedFormat, PolyFillType,
+  type ClipParams, type ClipperLibWrapper, type IntPoint, type Path, type Paths,
+} from 'js-angusj-clipper';
 import type { BBox } from './types';
 import { len2 } from './vec';
 
 /** integer units per mm (1 µm resolution) */
 export const SCALE = 1000;
 const ARC_TOLERANCE_UNITS = 5; // 5 µm between a rounded join and its chords
+/** Clipper's default and smallest miter limit; only square and miter joins read it */
+const MITER_LIMIT = 2;
 
 export type { Path, Paths };
+
+let clipper: ClipperLibWrapper | null = null;
+let loading: Promise<void> | null = null;
+
+/**
+ * Loads the WebAssembly build once (one shared promise). WebAssembly only, no asm.js fallback:
+ * every Node and browser the product supports runs WebAssembly; the asm.js build is 2–2.5×
+ * slower (the package's own benchmarks), so falling back would hide a failure as a slowdown;
+ * and the package's fallback only catches a loader that throws at once, while a WebAssembly
+ * load fails later, by rejecting, so it would not engage anyway.
+ */
+export function loadClipper(): Promise<void> {
+  return (loading ??= loadNativeClipperLibInstanceAsync(NativeClipperLibRequestedFormat.WasmOnly).then((lib) => {
+    clipper = lib;
+  }));
+}
+
+/** the loaded library; throws when loadClipper() has not finished (analyze() calls it first) */
+export function loadedClipper(): ClipperLibWrapper {
+  if (clipper) return clipper;
+  throw new Error('The through-cut analysis uses Clipper compiled to WebAssembly, which is not loaded yet: `await loadAnalysis()` (from lib/analysis) once before calling analyze() or the geometry helpers.');
+}
 
 /**
  * A closed polygon on the same integer grid as Clipper's paths (SCALE units per mm), kept in two
@@ -37,7 +64,7 @@ export function toRing(xs: ArrayLike<number>, ys: ArrayLike<number>): Ring {
 export function ringToPath(r: Ring): Path {
   const n = r.x.length;
   const path: Path = new Array(n);
-  for (let i = 0; i < n; i++) path[i] = { X: r.x[i], Y: r.y[i] };
+  for (let i = 0; i < n; i++) path[i] = { x: r.x[i], y: r.y[i] };
   return path;
 }
 
@@ -121,39 +148,58 @@ export function nearRing(px: number, py: number, r: Ring, distMm: number): boole
 export function toPath(xs: ArrayLike<number>, ys: ArrayLike<number>): Path {
   const n = xs.length;
   const path: Path = new Array(n);
-  for (let i = 0; i < n; i++) path[i] = { X: Math.round(xs[i] * SCALE), Y: Math.round(ys[i] * SCALE) };
+  for (let i = 0; i < n; i++) path[i] = { x: Math.round(xs[i] * SCALE), y: Math.round(ys[i] * SCALE) };
   return path;
 }
 
 /** signed area in mm²: positive counter-clockwise */
 export function pathAreaMm2(path: Path): number {
-  return ClipperLib.Clipper.Area(path) / (SCALE * SCALE);
+  return loadedClipper().area(path) / (SCALE * SCALE);
 }
 
 export function pathsAreaMm2(paths: Paths): number {
+  const lib = loadedClipper();
   let a = 0;
-  for (const p of paths) a += ClipperLib.Clipper.Area(p);
+  for (const p of paths) a += lib.area(p);
   return a / (SCALE * SCALE);
 }
 
 /** grows (delta > 0) or shrinks (delta < 0) closed polygons, with round joins */
 export function offsetPaths(paths: Paths, deltaMm: number): Paths {
+  const lib = loadedClipper();
   if (deltaMm === 0) return paths.map((p) => p.slice());
-  const co = new ClipperLib.ClipperOffset(2, ARC_TOLERANCE_UNITS);
-  co.AddPaths(paths, ClipperLib.JoinType.jtRound, ClipperLib.EndType.etClosedPolygon);
-  const out: Paths = [];
-  co.Execute(out, deltaMm * SCALE);
+  const out = lib.offsetToPaths({
+    delta: deltaMm * SCALE,
+    arcTolerance: ARC_TOLERANCE_UNITS,
+    miterLimit: MITER_LIMIT,
+    // one input of all the paths: the library copies them into WebAssembly memory in one block
+    offsetInputs: [{ data: paths, joinType: JoinType.Round, endType: EndType.ClosedPolygon }],
+  });
+  if (!out) throw new Error(`Clipper could not offset ${paths.length} paths by ${deltaMm} mm`);
   return out;
 }
 
+/** subject minus clip, non-zero fill on both */
 export function differencePaths(subject: Paths, clip: Paths): Paths {
+  const lib = loadedClipper();
   if (clip.length === 0 || subject.length === 0) return subject;
-  const c = new ClipperLib.Clipper();
-  c.AddPaths(subject, ClipperLib.PolyType.ptSubject, true);
-  c.AddPaths(clip, ClipperLib.PolyType.ptClip, true);
-  const out: Paths = [];
-  c.Execute(ClipperLib.ClipType.ctDifference, out, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
-  return out;
+  const subjectInputs = [{ data: subject, closed: true }];
+  const nonZero = PolyFillType.NonZero;
+  // the wrapper refuses a side none of whose paths Clipper takes (all degenerate: no three
+  // points off one line), where Clipper itself, as clipper-lib, clips without it: the subject's
+  // union when the clip is empty, nothing when the subject is
+  return clipOrNull(lib, { clipType: ClipType.Difference, subjectInputs, clipInputs: [{ data: clip }], subjectFillType: nonZero, clipFillType: nonZero })
+    ?? clipOrNull(lib, { clipType: ClipType.Union, subjectInputs, subjectFillType: nonZero })
+    ?? [];
+}
+
+function clipOrNull(lib: ClipperLibWrapper, params: ClipParams): Paths | null {
+  try {
+    return lib.clipToPaths(params);
+  } catch (err) {
+    if (err instanceof ClipperError && err.message === 'invalid paths') return null;
+    throw err;
+  }
 }
 
 /** true when every turn of the closed path goes the same way (collinear points allowed) */
@@ -163,7 +209,7 @@ export function isConvex(path: Path): boolean {
   let sign = 0;
   for (let i = 0; i < n; i++) {
     const a = path[i], b = path[(i + 1) % n], c = path[(i + 2) % n];
-    const cross = (b.X - a.X) * (c.Y - b.Y) - (b.Y - a.Y) * (c.X - b.X);
+    const cross = (b.x - a.x) * (c.y - b.y) - (b.y - a.y) * (c.x - b.x);
     if (cross === 0) continue;
     const s = cross > 0 ? 1 : -1;
     if (sign === 0) sign = s;
@@ -174,16 +220,17 @@ export function isConvex(path: Path): boolean {
 
 /** every point of `inner` strictly inside `outer` */
 export function pathInside(inner: Path, outer: Path): boolean {
-  for (const p of inner) if (ClipperLib.Clipper.PointInPolygon(p, outer) !== 1) return false;
+  const lib = loadedClipper();
+  for (const p of inner) if (lib.pointInPolygon(p, outer) !== 1) return false;
   return true;
 }
 
-const probe: IntPoint = { X: 0, Y: 0 };
+const probe: IntPoint = { x: 0, y: 0 };
 /** 1 inside, 0 outside, −1 on the boundary (to the micrometre) */
 export function pointInPath(xMm: number, yMm: number, path: Path): number {
-  probe.X = Math.round(xMm * SCALE);
-  probe.Y = Math.round(yMm * SCALE);
-  return ClipperLib.Clipper.PointInPolygon(probe, path);
+  probe.x = Math.round(xMm * SCALE);
+  probe.y = Math.round(yMm * SCALE);
+  return loadedClipper().pointInPolygon(probe, path);
 }
 
 /** inside the region made of outer paths (positive) and hole paths (negative), Clipper's output convention */
@@ -200,10 +247,10 @@ export function pathsGridBox(paths: Paths): number[] | null {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const p of paths) {
     for (const q of p) {
-      if (q.X < minX) minX = q.X;
-      if (q.X > maxX) maxX = q.X;
-      if (q.Y < minY) minY = q.Y;
-      if (q.Y > maxY) maxY = q.Y;
+      if (q.x < minX) minX = q.x;
+      if (q.x > maxX) maxX = q.x;
+      if (q.y < minY) minY = q.y;
+      if (q.y > maxY) maxY = q.y;
     }
   }
   return minX > maxX ? null : [minX, minY, maxX, maxY];
@@ -220,7 +267,7 @@ export function pathPerimeterMm(path: Path): number {
   for (let i = 0; i < n; i++) {
     const a = path[i];
     const b = path[(i + 1) % n];
-    len += len2(b.X - a.X, b.Y - a.Y);
+    len += len2(b.x - a.x, b.y - a.y);
   }
   return len / SCALE;
 }

@@ -4,12 +4,14 @@
 // below the sheet bottom chained into closed loops in XY (cut-graph, faces), nested into parts
 // and holes (nesting, parts), hold by tabs, skin or the hold-down (hold), and per-move
 // program checks (program-checks). The result is an aid for the programmer and the operator,
-// not a guarantee.
+// not a guarantee. The polygon work runs in WebAssembly (geometry), loaded once by
+// loadAnalysis(); analyze() itself stays synchronous.
 import type { MoveList } from '@/lib/gcode/move-list';
 import { findCrossings } from './crossings';
 import { checkCutOrder } from './cut-order';
 import { extractLoops, prune } from './faces';
 import { FindingSink, fmt } from './findings';
+import { loadClipper, loadedClipper } from './geometry';
 import { LoopShapes } from './loop-shapes';
 import { describeLoop } from './loops';
 import { nestLoops } from './nesting';
@@ -27,7 +29,14 @@ export { PlungePoints } from './plunge-points';
 export const ANALYSIS_NOTE =
   'These checks are an aid, not a guarantee: the operator, the machine\'s manual, the shop\'s safety rules and local codes decide whether a program is safe to run.';
 
+/** loads what analyze() needs (Clipper in WebAssembly); idempotent, every call shares one promise */
+export function loadAnalysis(): Promise<void> {
+  return loadClipper();
+}
+
+/** throws, naming loadAnalysis(), when it has not been awaited */
 export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
+  loadedClipper(); // fail at the start, not only for programs that reach the offsets
   const s = resolveSettings(input.settings);
   const sink = new FindingSink(s.maxFindingsPerKind);
   const sheet = validSheet(input.sheet, sink);

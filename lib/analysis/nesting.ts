@@ -145,7 +145,7 @@ class Node implements LoopNode {
     if (this.clipperPath) return this.clipperPath;
     const { x, y } = this.shape.ring;
     const path: Path = new Array(x.length);
-    for (let i = 0; i < x.length; i++) path[i] = { X: x[i] + this.ox, Y: y[i] + this.oy };
+    for (let i = 0; i < x.length; i++) path[i] = { x: x[i] + this.ox, y: y[i] + this.oy };
     return (this.clipperPath = path);
   }
 }

@@ -25,7 +25,7 @@ export function hashNumbers(data: Float64Array): number {
 
 export function translatePath(path: Path, dx: number, dy: number): Path {
   const out: Path = new Array(path.length);
-  for (let i = 0; i < path.length; i++) out[i] = { X: path[i].X + dx, Y: path[i].Y + dy };
+  for (let i = 0; i < path.length; i++) out[i] = { x: path[i].x + dx, y: path[i].y + dy };
   return out;
 }
 

@@ -1,6 +1,8 @@
 // One estimate from one program text: interpret (lib/gcode), plan (lib/kinematics), check
 // (lib/analysis), assembled into the report the CLI prints and the server will store. Pure, so
 // the CLI, a Node worker thread and the browser worker give the same answer for the same input.
+// The analysis's polygon library is WebAssembly loaded asynchronously: a caller awaits
+// loadAnalysis() (lib/analysis) once before the first runEstimate(), which stays synchronous.
 import { analyze, type AnalysisResult, type HoldDownMethod } from '../analysis';
 import { interpret, type InterpretResult } from '../gcode';
 import { buildEstimateReport, estimate, stockTopZ, type Estimate, type EstimateReport } from '../kinematics';

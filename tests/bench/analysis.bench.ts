@@ -14,7 +14,7 @@ import path from 'node:path';
 import { generateNestSheet } from '@/fixtures/nest-sheet';
 import { BIRCH_18, generateProgram, NEST_SHEET, nestExtentMm, sheetsIn } from '@/fixtures/program-generator';
 import { DEFAULT_DIALECT } from '@/fixtures/program-writer';
-import { analyze, type AnalysisInput } from '@/lib/analysis';
+import { analyze, loadAnalysis, type AnalysisInput } from '@/lib/analysis';
 import { interpret } from '@/lib/gcode';
 import { estimate } from '@/lib/kinematics';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
@@ -35,6 +35,7 @@ function best<T>(runs: number, f: () => T): { ms: number; value: T } {
 }
 
 export default async function bench(): Promise<void> {
+  await loadAnalysis(); // before any timing: the WebAssembly compile is a one-off per process
   const machine = JSON.parse(readFileSync(path.resolve(__dirname, '../../fixtures/machines/router-1.json'), 'utf8'));
   const parsed = parseMachineProfile(machine);
   if (!parsed.ok) throw new Error(`fixtures/machines/router-1.json: ${parsed.message}`);

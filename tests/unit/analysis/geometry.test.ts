@@ -1,12 +1,17 @@
 // Areas and containment of through-cut parts against closed forms and against an independent
 // polygon library (@flatten-js/core, exact circular arcs), and Clipper's own offsets; the
-// typed-array rings the nesting works on against Clipper's point-in-polygon and area.
+// analysis's Clipper (6.4.2 compiled to WebAssembly) against the plain JavaScript port of the
+// same Clipper (clipper-lib) for offsets, differences, areas and point-in-polygon, and the
+// typed-array rings the nesting works on against clipper-lib's point-in-polygon and area.
 import Flatten from '@flatten-js/core';
-import ClipperLib from 'clipper-lib';
+import ClipperLib, { type Path as RefPath, type Paths as RefPaths } from 'clipper-lib';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyze } from '@/lib/analysis';
-import { offsetPaths, pathsAreaMm2, pointInPath, pointInRing, ringAreaMm2, ringPerimeterMm, ringToPath, toPath, toRing } from '@/lib/analysis/geometry';
+import {
+  differencePaths, offsetPaths, pathAreaMm2, pathsAreaMm2, pointInPath, pointInRing, ringAreaMm2, ringPerimeterMm, ringToPath, toPath, toRing,
+  type Path, type Paths,
+} from '@/lib/analysis/geometry';
 import { ProgramWriter } from './support/program';
 import { job } from './support/jobs';
 
@@ -133,6 +138,110 @@ describe('containment and nesting', () => {
   });
 });
 
+/** a path in clipper-lib's point type ({X, Y}) */
+const ref = (p: Path): RefPath => p.map((q) => ({ X: q.x, Y: q.y }));
+/** clipper-lib's paths in the analysis's point type; + 0 turns the −0 its rounding can give into 0 */
+const fromRef = (ps: RefPaths): Paths => ps.map((p) => p.map((q) => ({ x: q.X + 0, y: q.Y + 0 })));
+
+/**
+ * paths as a set of polygons: each started at its lowest point (x, then y), the paths in order
+ * of those points. The two builds' boolean operations may start a polygon at another vertex
+ * (as where the two inputs touch) or list the polygons in another order.
+ */
+function polygonSet(ps: Paths): Paths {
+  const lower = (a: { x: number; y: number }, b: { x: number; y: number }) => a.x - b.x || a.y - b.y;
+  return ps.map((p) => {
+    let k = 0;
+    for (let i = 1; i < p.length; i++) if (lower(p[i], p[k]) < 0) k = i;
+    return [...p.slice(k), ...p.slice(0, k)];
+  }).sort((a, b) => lower(a[0], b[0]) || a.length - b.length);
+}
+
+/** clipper-lib's offset with the analysis's settings: miter limit 2, arc tolerance 5 µm, round joins */
+function refOffset(paths: Paths, deltaMm: number): Paths {
+  const co = new ClipperLib.ClipperOffset(2, 5);
+  co.AddPaths(paths.map(ref), ClipperLib.JoinType.jtRound, ClipperLib.EndType.etClosedPolygon);
+  const out: RefPaths = [];
+  co.Execute(out, deltaMm * 1000);
+  return fromRef(out);
+}
+
+function refDifference(subject: Paths, clip: Paths): Paths {
+  const c = new ClipperLib.Clipper();
+  c.AddPaths(subject.map(ref), ClipperLib.PolyType.ptSubject, true);
+  c.AddPaths(clip.map(ref), ClipperLib.PolyType.ptClip, true);
+  const out: RefPaths = [];
+  c.Execute(ClipperLib.ClipType.ctDifference, out, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
+  return fromRef(out);
+}
+
+/**
+ * a star-shaped polygon (so simple, as Clipper's offset requires) about a centre anywhere on a
+ * large sheet, counter-clockwise: vertex angles sorted, radii 1–60 mm, in mm
+ */
+const star = fc.record({
+  cx: fc.integer({ min: -3000, max: 3000 }),
+  cy: fc.integer({ min: -3000, max: 3000 }),
+  vertices: fc.uniqueArray(fc.tuple(fc.integer({ min: 0, max: 3599 }), fc.double({ min: 1, max: 60, noNaN: true })), { minLength: 3, maxLength: 40, selector: (v) => v[0] }),
+}).map(({ cx, cy, vertices }) => {
+  const v = vertices.slice().sort((a, b) => a[0] - b[0]);
+  return toPath(v.map(([a, r]) => cx + r * Math.cos(a * Math.PI / 1800)), v.map(([a, r]) => cy + r * Math.sin(a * Math.PI / 1800)));
+});
+/**
+ * tool radii from 0.1 mm up, either way. (Below that the two builds part: offsets of 1–2 µm, one
+ * or two grid units, round some arc points differently about a third of the time.)
+ */
+const delta = fc.tuple(fc.double({ min: 0.1, max: 8, noNaN: true }), fc.boolean()).map(([d, grow]) => (grow ? d : -d));
+/** polygons Clipper takes: some three points off one line (a zero-area path may not be) */
+const solid = star.filter((p) => ClipperLib.Clipper.Area(ref(p)) !== 0);
+
+describe('Clipper in WebAssembly against clipper-lib (the same Clipper 6.4.2 in plain JavaScript)', () => {
+  it('offsets with round joins give clipper-lib\'s paths point for point', () => {
+    fc.assert(fc.property(star, delta, (path, d) => {
+      expect(offsetPaths([path], d)).toEqual(refOffset([path], d));
+    }), { numRuns: 300 });
+  });
+
+  it('an outline offset with its holes turned clockwise (one tool) gives clipper-lib\'s paths', () => {
+    fc.assert(fc.property(star, fc.double({ min: 0.5, max: 6, noNaN: true }), (hole, r) => {
+      // a 270 mm square, counter-clockwise, round the hole (whose box starts at b and spans at most 120 mm); the hole reversed
+      const b = hole.reduce((m, q) => ({ x: Math.min(m.x, q.x), y: Math.min(m.y, q.y) }), { x: Infinity, y: Infinity });
+      const outer = toPath([-70, 200, 200, -70].map((v) => b.x / 1000 + v), [-70, -70, 200, 200].map((v) => b.y / 1000 + v));
+      const paths = [outer, hole.slice().reverse()];
+      expect(offsetPaths(paths, -r)).toEqual(refOffset(paths, -r));
+    }), { numRuns: 200 });
+  });
+
+  it('differences (non-zero fill) give clipper-lib\'s polygons, and Clipper.Area\'s areas', () => {
+    fc.assert(fc.property(solid, solid, fc.integer({ min: -40, max: 40 }), fc.integer({ min: -40, max: 40 }), (a, b, dx, dy) => {
+      // b moved next to a, so that they overlap in some cases and not in others
+      const moved = b.map((q) => ({ x: q.x - b[0].x + a[0].x + dx * 1000, y: q.y - b[0].y + a[0].y + dy * 1000 }));
+      const got = differencePaths([a], [moved]);
+      expect(polygonSet(got)).toEqual(polygonSet(refDifference([a], [moved])));
+      expect(pathsAreaMm2(got)).toBe(got.reduce((s, p) => s + ClipperLib.Clipper.Area(ref(p)), 0) / 1e6);
+    }), { numRuns: 300 });
+  });
+
+  it('a side of only degenerate paths is left out, as clipper-lib leaves it out', () => {
+    const square = toPath([0, 10, 10, 0], [0, 0, 10, 10]);
+    const line = toPath([2, 5, 8], [2, 5, 8]); // three points on one line
+    expect(differencePaths([square], [line])).toEqual(refDifference([square], [line]));
+    expect(differencePaths([line], [square])).toEqual(refDifference([line], [square]));
+    expect(differencePaths([line], [square])).toEqual([]);
+    expect(pathsAreaMm2(differencePaths([square], [line]))).toBe(100);
+  });
+
+  it('path area and point in path are clipper-lib\'s Clipper.Area and Clipper.PointInPolygon', () => {
+    fc.assert(fc.property(star, fc.array(fc.tuple(fc.integer({ min: -70, max: 70 }), fc.integer({ min: -70, max: 70 })), { minLength: 1, maxLength: 20 }), (path, probes) => {
+      expect(pathAreaMm2(path)).toBe(ClipperLib.Clipper.Area(ref(path)) / 1e6);
+      // probes about the first vertex, on the 1 mm grid, and the vertices themselves (boundary)
+      for (const [px, py] of [...probes.map(([u, v]) => [path[0].x + u * 1000, path[0].y + v * 1000]), ...path.map((q) => [q.x, q.y])]) {
+        expect(pointInPath(px / 1000, py / 1000, path)).toBe(ClipperLib.Clipper.PointInPolygon({ X: px, Y: py }, ref(path)));
+      }
+    }), { numRuns: 200 });
+  });
+});
+
 describe('rings on the micrometre grid against Clipper (clipper-lib as the reference)', () => {
   // random simple and self-crossing polygons on a small grid, so points on edges and vertices come up often
   const polygon = fc.array(fc.tuple(fc.integer({ min: -20, max: 20 }), fc.integer({ min: -20, max: 20 })), { minLength: 3, maxLength: 12 });
@@ -141,7 +250,7 @@ describe('rings on the micrometre grid against Clipper (clipper-lib as the refer
   it('point in ring (Hormann–Agathos) gives Clipper.PointInPolygon\'s answer, boundary included', () => {
     fc.assert(fc.property(polygon, fc.array(probe, { minLength: 1, maxLength: 20 }), (pts, probes) => {
       const ring = { x: Float64Array.from(pts.map((p) => p[0] * 1000)), y: Float64Array.from(pts.map((p) => p[1] * 1000)) };
-      const path = ringToPath(ring);
+      const path = ref(ringToPath(ring));
       for (const [px, py] of probes) {
         expect(pointInRing(px * 1000, py * 1000, ring)).toBe(ClipperLib.Clipper.PointInPolygon({ X: px * 1000, Y: py * 1000 }, path));
       }
@@ -154,7 +263,7 @@ describe('rings on the micrometre grid against Clipper (clipper-lib as the refer
       const ring = toRing(xs, ys);
       const path = toPath(xs, ys);
       expect(ringToPath(ring)).toEqual(path);
-      expect(ringAreaMm2(ring)).toBeCloseTo(ClipperLib.Clipper.Area(path) / 1e6, 9);
+      expect(ringAreaMm2(ring)).toBeCloseTo(ClipperLib.Clipper.Area(ref(path)) / 1e6, 9);
     }), { numRuns: 300 });
   });
 

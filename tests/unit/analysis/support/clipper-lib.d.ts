@@ -1,6 +1,7 @@
-// Types for the parts of the `clipper-lib` package (Clipper 6, plain CommonJS JavaScript, no
-// bundled types) that the through-cut analysis uses: integer paths, offsets, boolean
-// operations, signed area and point-in-polygon.
+// Types for the parts of the `clipper-lib` package (Clipper 6.4.2, plain CommonJS JavaScript, no
+// bundled types) that the unit tests use as the independent reference for the analysis's
+// WebAssembly build of the same Clipper: integer paths, offsets, boolean operations, signed
+// area and point-in-polygon.
 declare module 'clipper-lib' {
   export interface IntPoint {
     X: number;
