@@ -39,57 +39,23 @@ export class LoopShapes {
   /** the key of the loop being placed, copied only when its shape is new, and its hash */
   private key = new Float64Array(256);
   private hash = 0;
-  /** the graph's vertices rounded to the grid once, shared by every loop of it */
-  private graph: CutGraph | null = null;
-  private qx = new Float64Array(0);
-  private qy = new Float64Array(0);
-  /** per arc edge, rounded: radius, sweep from end u to end v, centre (0 for a straight edge) */
-  private aR = new Float64Array(0);
-  private aSweep = new Float64Array(0);
-  private aCx = new Float64Array(0);
-  private aCy = new Float64Array(0);
-
   get hits(): number { return this.cache.hits; }
   get misses(): number { return this.cache.misses; }
-
-  private gridOf(g: CutGraph): void {
-    if (this.graph === g && this.qx.length === g.vertexCount && this.aR.length === g.edgeCount) return;
-    const n = g.vertexCount;
-    const vx = g.vx, vy = g.vy;
-    const qx = new Float64Array(n), qy = new Float64Array(n);
-    for (let v = 0; v < n; v++) {
-      qx[v] = Math.round(vx[v] * GRID);
-      qy[v] = Math.round(vy[v] * GRID);
-    }
-    const m = g.edgeCount;
-    const eR = g.eR, eSweep = g.eSweep, eCx = g.eCx, eCy = g.eCy;
-    const aR = new Float64Array(m), aSweep = new Float64Array(m), aCx = new Float64Array(m), aCy = new Float64Array(m);
-    for (let e = 0; e < m; e++) {
-      if (eR[e] <= 0) continue;
-      aR[e] = Math.round(eR[e] * GRID);
-      aSweep[e] = Math.round(eSweep[e] * ANGLE_UNITS);
-      aCx[e] = Math.round(eCx[e] * GRID);
-      aCy[e] = Math.round(eCy[e] * GRID);
-    }
-    this.graph = g;
-    this.qx = qx; this.qy = qy;
-    this.aR = aR; this.aSweep = aSweep; this.aCx = aCx; this.aCy = aCy;
-  }
 
   /**
    * the shape of a graph loop and its origin; `toleranceMm` is the chord sagitta its arcs are
    * drawn with when the shape is new
    */
   place(g: CutGraph, loop: GraphLoop, toleranceMm: number): PlacedLoop {
-    this.gridOf(g);
     const verts = loop.verts;
     const n = verts.length;
-    const gx = this.qx, gy = this.qy;
-    // origin: the lowest-leftmost vertex on the grid
+    const vx = g.vx, vy = g.vy;
+    // origin: the lowest-leftmost vertex on the grid (rounded here and again in keyOf: cheaper
+    // than tables of the whole graph's rounded points, which would be mostly cache misses)
     let s = 0;
-    let ox = gx[verts[0]], oy = gy[verts[0]];
+    let ox = Math.round(vx[verts[0]] * GRID), oy = Math.round(vy[verts[0]] * GRID);
     for (let i = 1; i < n; i++) {
-      const qx = gx[verts[i]], qy = gy[verts[i]];
+      const qx = Math.round(vx[verts[i]] * GRID), qy = Math.round(vy[verts[i]] * GRID);
       if (qy < oy || (qy === oy && qx < ox)) { s = i; ox = qx; oy = qy; }
     }
     const data = this.keyOf(g, loop, s, ox, oy);
@@ -109,18 +75,27 @@ export class LoopShapes {
     const n = verts.length;
     if (this.key.length < 6 * n) this.key = new Float64Array(12 * n);
     const key = this.key;
-    const gx = this.qx, gy = this.qy, aR = this.aR, aSweep = this.aSweep, aCx = this.aCx, aCy = this.aCy, eu = g.eu;
+    const vx = g.vx, vy = g.vy, eR = g.eR, eSweep = g.eSweep, eCx = g.eCx, eCy = g.eCy, eu = g.eu;
     // FNV-style over the whole numbers of the vertices and radii (the rest is compared on a hit)
     let h = 0x811c9dc5 ^ n;
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
       const v = verts[i], e = edges[i];
-      const r = aR[e], dx = gx[v] - ox, dy = gy[v] - oy;
+      const dx = Math.round(vx[v] * GRID) - ox, dy = Math.round(vy[v] * GRID) - oy;
       key[o] = dx;
       key[o + 1] = dy;
+      let r = 0;
+      if (eR[e] > 0) {
+        r = Math.round(eR[e] * GRID);
+        const sw = Math.round(eSweep[e] * ANGLE_UNITS);
+        key[o + 3] = eu[e] === v ? sw : -sw;
+        key[o + 4] = Math.round(eCx[e] * GRID) - ox;
+        key[o + 5] = Math.round(eCy[e] * GRID) - oy;
+      } else {
+        key[o + 3] = 0;
+        key[o + 4] = 0;
+        key[o + 5] = 0;
+      }
       key[o + 2] = r;
-      key[o + 3] = r > 0 ? (eu[e] === v ? aSweep[e] : -aSweep[e]) : 0;
-      key[o + 4] = r > 0 ? aCx[e] - ox : 0;
-      key[o + 5] = r > 0 ? aCy[e] - oy : 0;
       h = Math.imul(Math.imul(Math.imul(h ^ dx, 0x01000193) ^ dy, 0x01000193) ^ r, 0x01000193);
     }
     this.hash = h & 0x3fffffff; // a small integer: Map keys stay on the fast path
