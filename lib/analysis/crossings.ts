@@ -16,8 +16,15 @@ export interface Crossing {
 }
 
 const MAX_PAIR_TESTS = 30_000_000;
-/** more through-cut edges than this in one cell (half an average edge across) is many cuts on top of each other */
+/**
+ * A cell is piled with cuts (many on top of each other) when it holds more edges than this and
+ * their length within it (each edge's length, at most the cell's diagonal) is more than
+ * DENSE_CELL_SPANS cell sides: as many cuts as that all the way across one cell. Cuts side by
+ * side are at least a kerf apart, so a cell a few kerfs wide holds only a few of them; many
+ * short chords (small holes, arcs) are many edges but not much length, and are tested pair by pair.
+ */
 const DENSE_CELL_EDGES = 128;
+const DENSE_CELL_SPANS = 32;
 
 /** edge b runs along arc edge a (both its ends within the arc's chord error of the circle) */
 function alongArc(g: CutGraph, a: number, b: number, tol: number): boolean {
@@ -65,6 +72,17 @@ function walkCells(g: CutGraph, e: number, grid: Grid, out: Int32Array, at: numb
   return at;
 }
 
+/** the edges items[lo..hi) are more length within their cell than DENSE_CELL_SPANS sides */
+function piled(items: Int32Array, lo: number, hi: number, lengths: Float64Array, cell: number): boolean {
+  const diagonal = cell * Math.SQRT2;
+  let sum = 0;
+  for (let i = lo; i < hi; i++) {
+    const len = lengths[items[i]];
+    sum += len < diagonal ? len : diagonal;
+  }
+  return sum > DENSE_CELL_SPANS * cell;
+}
+
 /** `alive` marks the edges to test (dangling ends cannot bound a part and are left out) */
 export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Array): { crossed: Uint8Array; crossings: Crossing[] } {
   const E = g.edgeCount;
@@ -83,8 +101,9 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
     lengths[e] = len;
     total += len;
   }
-  // about four cells per edge at most: a sparse nest over a wide area must not walk millions of empty cells
-  const cell = Math.max(toleranceMm * 10, (total / E) / 2, Math.max(maxX - minX, maxY - minY) / 4096, Math.sqrt(((maxX - minX) * (maxY - minY)) / (4 * E)));
+  // about one cell per edge at most: a sparse nest over a wide area must not count and walk
+  // millions of empty cells (four per edge took half as long again on the generated nest)
+  const cell = Math.max(toleranceMm * 10, (total / E) / 2, Math.max(maxX - minX, maxY - minY) / 4096, Math.sqrt(((maxX - minX) * (maxY - minY)) / E));
   const nx = Math.floor((maxX - minX) / cell) + 1;
   const ny = Math.floor((maxY - minY) / cell) + 1;
   // one traversal per edge, its cells kept in order; then count them and fill the cells' lists (CSR)
@@ -112,7 +131,7 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
   for (let c = 0; c < nx * ny && tests < MAX_PAIR_TESTS; c++) {
     const lo = counts[c], hi = counts[c + 1];
     if (hi - lo < 2) continue;
-    if (hi - lo > DENSE_CELL_EDGES) {
+    if (hi - lo > DENSE_CELL_EDGES && piled(items, lo, hi, lengths, cell)) {
       // cuts piled on each other: every edge here is treated as overlapping, one report for the cell
       for (let i = lo; i < hi; i++) crossed[items[i]] = 1;
       const a = items[lo];

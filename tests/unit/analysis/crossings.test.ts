@@ -99,6 +99,32 @@ describe('findCrossings', () => {
     expect(findCrossings(pentagon, 0.01, allAlive(pentagon)).crossings).toEqual([]);
   });
 
+  it('many small holes crowded into one grid cell do not cross; a fan of cuts through one point all cross', () => {
+    // 40 holes of 16 chords (r 0.8 mm, 2 mm apart) in one corner of a 1000 mm square: the grid
+    // is sized for the whole square, so one cell holds far more edges than a piled-cuts check
+    // would take on trust, yet little length; the brute-force reference decides
+    const g = new CutGraph(0.01, THROUGH_Z);
+    polygon(g, [[0, 0], [1000, 0], [1000, 1000], [0, 1000]]);
+    for (let i = 0; i < 40; i++) {
+      const cx = 5 + 2 * (i % 10), cy = 5 + 2 * Math.floor(i / 10);
+      polygon(g, Array.from({ length: 16 }, (_, k) => [cx + 0.8 * Math.cos((Math.PI * k) / 8), cy + 0.8 * Math.sin((Math.PI * k) / 8)]));
+    }
+    expect(g.edgeCount).toBe(4 + 40 * 16);
+    const holes = findCrossings(g, 0.01, allAlive(g));
+    expect(holes.crossings).toEqual([]);
+    expect(Array.from(holes.crossed)).toEqual(Array.from(bruteCrossed(g)));
+    // 150 cuts 40 mm long through the point (500, 500), each at its own angle: every one crosses every other
+    const fan = new CutGraph(0.01, THROUGH_Z);
+    polygon(fan, [[0, 0], [1000, 0], [1000, 1000], [0, 1000]]);
+    for (let i = 0; i < 150; i++) {
+      const a = (Math.PI * i) / 150;
+      fan.addPiece(500 - 20 * Math.cos(a), 500 - 20 * Math.sin(a), -18.2, 500 + 20 * Math.cos(a), 500 + 20 * Math.sin(a), -18.2, 10 + i, 1);
+    }
+    const f = findCrossings(fan, 0.01, allAlive(fan));
+    expect(Array.from(f.crossed)).toEqual(Array.from(bruteCrossed(fan)));
+    expect(f.crossings.length).toBeGreaterThan(0);
+  });
+
   it('a bow tie crosses itself once, at the middle', () => {
     // a bow tie: four points, the two long sides cross at (10, 5)
     const bow = new CutGraph(0.01, THROUGH_Z);
