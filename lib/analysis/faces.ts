@@ -2,6 +2,9 @@
 // pass retraced) are pruned first; then every bounded face of the planar graph is walked,
 // turning at each vertex to the next edge clockwise from the one it came in on, so that a
 // bounded face comes out counter-clockwise (positive area) and the outer face negative.
+// Most loops of a nest are simple cycles (two live edges at every vertex): there the turn is
+// to the other edge, with no angles, and the face on the other side is the same cycle walked
+// back, so it is read off the first walk instead of walked again.
 import type { CutGraph } from './cut-graph';
 
 export interface GraphLoop {
@@ -16,6 +19,7 @@ export interface PrunedGraph {
   alive: Uint8Array;
   deg: Int32Array;
   start: Int32Array;
+  /** each vertex's edges at adj[start[v] … start[v + 1]); extractLoops reorders each list in place (live edges first, in turning order) */
   adj: Int32Array;
 }
 
@@ -64,8 +68,10 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
   if (E === 0) return [];
   const eu = g.eu, ev = g.ev;
   const { alive, deg, start, adj } = pruned;
-  // sort live edges around each vertex by angle, remember each edge end's position
-  const order = new Int32Array(2 * E);
+  // sort live edges around each vertex by angle, remember each edge end's position; in place
+  // in the pruned graph's lists (live edges first, in turning order): a vertex of two live
+  // edges, the most common, is left as it is, and a second copy of the lists is not made
+  const order = adj;
   const count = new Int32Array(V);
   const posAtU = new Int32Array(E);
   const posAtV = new Int32Array(E);
@@ -92,11 +98,19 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
         tmp[j] = e;
       }
     }
-    for (let i = 0; i < m; i++) {
-      const e = tmp[i];
-      order[lo + i] = e;
-      if (eu[e] === v) posAtU[e] = i;
-      else posAtV[e] = i;
+    if (m > 2 || m < hi - lo) {
+      // the dead edges after the live ones: the list stays a permutation of the vertex's edges
+      let d = m;
+      for (let k = lo; k < hi; k++) if (!alive[adj[k]]) tmp[d++] = adj[k];
+      for (let i = 0; i < d; i++) order[lo + i] = tmp[i];
+    }
+    // the walk reads an edge's position only at a junction: two edges, it takes the other one
+    if (m > 2) {
+      for (let i = 0; i < m; i++) {
+        const e = tmp[i];
+        if (eu[e] === v) posAtU[e] = i;
+        else posAtV[e] = i;
+      }
     }
     count[v] = m;
   }
@@ -114,6 +128,7 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
     let len = off;
     let h = h0;
     let area2 = 0;
+    let simple = true;
     while (!used[h]) {
       used[h] = 1;
       const e = h >> 1;
@@ -122,16 +137,53 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
       vs[len] = from;
       es[len++] = e;
       area2 += vx[from] * vy[to] - vx[to] * vy[from];
-      // at `to`, the edge we came in on sits at pos; take the next one clockwise
-      const pos = eu[e] === to ? posAtU[e] : posAtV[e];
       const n = count[to];
-      // (pos − 1 + n) mod n, without an integer division per step
-      const next = order[start[to] + (pos > 0 ? pos - 1 : n - 1)];
+      const at = start[to];
+      let next: number;
+      if (n === 2) {
+        next = order[at] === e ? order[at + 1] : order[at];
+      } else {
+        simple = false;
+        // at `to`, the edge we came in on sits at pos; take the next one clockwise
+        const pos = eu[e] === to ? posAtU[e] : posAtV[e];
+        // (pos − 1 + n) mod n, without an integer division per step
+        next = order[at + (pos > 0 ? pos - 1 : n - 1)];
+      }
       h = next * 2 + (eu[next] === to ? 0 : 1);
     }
-    if (h !== h0 || area2 <= 1e-9) continue;
+    if (h !== h0) continue;
+    if (simple) {
+      // the face on the other side is this cycle walked back: its half-edges are done too, and
+      // when this one is the outside (clockwise), that one is the loop, as its own walk would
+      // give it: from the far end of the first edge, back along it, then the rest in reverse
+      for (let i = off; i < len; i++) used[es[i] * 2 + (eu[es[i]] === vs[i] ? 1 : 0)] = 1;
+      if (area2 < -1e-9) {
+        reverseWalk(vs, es, off, len, eu, ev);
+        area2 = -area2;
+      }
+    }
+    if (area2 <= 1e-9) continue;
     loops.push({ verts: vs.subarray(off, len), edges: es.subarray(off, len) });
     off = len;
   }
   return loops;
+}
+
+/**
+ * turns the walk vs/es[off..len) (verts w0 … w(k−1), edges f0 … f(k−1), f(i) from w(i) to
+ * w(i+1)) into the walk the other way from the far end of f0: verts w1, w0, w(k−1) … w2,
+ * edges f0, f(k−1) … f1
+ */
+function reverseWalk(vs: Int32Array, es: Int32Array, off: number, len: number, eu: Int32Array, ev: Int32Array): void {
+  const f0 = es[off];
+  const w0 = vs[off];
+  const w1 = eu[f0] === w0 ? ev[f0] : eu[f0];
+  // verts off+1 … len−1 hold w1 … w(k−1): reversed, w(k−1) … w1; then shift w1 to the front
+  for (let i = off + 1, j = len - 1; i < j; i++, j--) { const t = vs[i]; vs[i] = vs[j]; vs[j] = t; }
+  // now vs = w0, w(k−1) … w2, w1: rotate w1 to the front and w0 after it
+  for (let i = len - 1; i > off + 1; i--) vs[i] = vs[i - 1];
+  vs[off] = w1;
+  vs[off + 1] = w0;
+  // edges off+1 … len−1 hold f1 … f(k−1): reversed, f(k−1) … f1
+  for (let i = off + 1, j = len - 1; i < j; i++, j--) { const t = es[i]; es[i] = es[j]; es[j] = t; }
 }
