@@ -5,6 +5,7 @@
 // Figures only; nothing here fails on a number.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import { generateProgram } from '../../fixtures/program-generator';
 import { interpret } from '../../lib/gcode';
 import { estimate } from '../../lib/kinematics';
 import { parseMachineProfile } from '../../lib/validation/machine-profile';
@@ -16,19 +17,12 @@ const ROUNDS = 3;
 
 
 export default async function kinematicsBench(): Promise<void> {
-  let generateProgram: ((lines: number, seed?: number) => string) | undefined;
-  try {
-    ({ generateProgram } = await import('../../fixtures/program-generator'));
-  } catch {
-    console.log('fixtures/program-generator is not there yet: nothing to measure');
-    return;
-  }
-  const root = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../..');
+  const root = path.resolve(__dirname, '../..');
   const parsed = parseMachineProfile(JSON.parse(readFileSync(path.join(root, 'fixtures/machines/router-1.json'), 'utf8')));
   if (!parsed.ok) throw new Error(`router-1.json: ${parsed.message}`);
   const profile = parsed.profile;
 
-  const text = generateProgram!(LINES, 1);
+  const text = generateProgram(LINES, 1);
   console.log(`program: ${LINES.toLocaleString('en')} lines, ${(text.length / 1048576).toFixed(1)} MB; machine ${profile.name} (look-ahead ${profile.lookahead}, block rate ${profile.maxBlockRate}/s)`);
 
   // warm-up so that neither path pays for compilation in the timed rounds
