@@ -8,10 +8,15 @@
 import type { CutGraph } from './cut-graph';
 
 export interface GraphLoop {
-  /** vertex ids in order, counter-clockwise */
+  /**
+   * vertex ids in order, counter-clockwise, at verts[start … start + length): the arrays are
+   * shared by all the loops of one extractLoops() (no array per loop)
+   */
   verts: Int32Array;
-  /** edge ids, edges[i] joins verts[i] and verts[i+1] (cyclic) */
+  /** edge ids, edges[start + i] joins verts[start + i] and the next vertex (cyclic) */
   edges: Int32Array;
+  start: number;
+  length: number;
 }
 
 /** the graph with its dangling ends pruned: alive[e] = 1 for an edge of a cycle or a path between cycles */
@@ -117,8 +122,8 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
   // walk faces over half-edges: h = 2e (u→v) or 2e+1 (v→u)
   const used = new Uint8Array(2 * E);
   const loops: GraphLoop[] = [];
-  // every half-edge is walked once, so the walks fit one after another in 2E slots: a loop's
-  // arrays are views of these, not copies with a buffer each
+  // every half-edge is walked once, so the walks fit one after another in 2E slots: a loop is
+  // a stretch of these, not arrays of its own
   const vs = new Int32Array(2 * E);
   const es = new Int32Array(2 * E);
   let off = 0;
@@ -163,7 +168,7 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
       }
     }
     if (area2 <= 1e-9) continue;
-    loops.push({ verts: vs.subarray(off, len), edges: es.subarray(off, len) });
+    loops.push({ verts: vs, edges: es, start: off, length: len - off });
     off = len;
   }
   return loops;

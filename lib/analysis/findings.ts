@@ -9,11 +9,30 @@ export class FindingSink {
 
   constructor(private readonly maxPerKind: number) {}
 
-  /** `message` may be a function, called only for a finding that is listed (the rest are counted) */
+  /** how many more findings of this kind would be listed (past that, add() only counts them) */
+  room(kind: FindingKind): number {
+    return this.maxPerKind - (this.kept.get(kind) ?? 0);
+  }
+
+  /** whether a finding of this kind added now would be listed */
+  listing(kind: FindingKind): boolean {
+    return this.room(kind) > 0;
+  }
+
+  /** n findings of this kind past its limit: counted for the summary, not listed */
+  count(kind: FindingKind, n = 1): void {
+    if (n > 0) this.suppressed[kind] = (this.suppressed[kind] ?? 0) + n;
+  }
+
+  /**
+   * `message` may be a function, called only for a finding that is listed (the rest are
+   * counted). On a per-move path, test listing() and build the text only then: a closure made
+   * for every call costs its context even when the finding is only counted.
+   */
   add(kind: FindingKind, severity: FindingSeverity, line: number, message: string | (() => string), part?: number): void {
     const n = this.kept.get(kind) ?? 0;
     if (n >= this.maxPerKind) {
-      this.suppressed[kind] = (this.suppressed[kind] ?? 0) + 1;
+      this.count(kind);
       return;
     }
     this.kept.set(kind, n + 1);

@@ -9,7 +9,7 @@
 import type { MoveList } from '@/lib/gcode/move-list';
 import { findCrossings } from './crossings';
 import { checkCutOrder } from './cut-order';
-import { extractLoops, prune } from './faces';
+import { extractLoops, prune, type GraphLoop } from './faces';
 import { FindingSink, fmt } from './findings';
 import { loadClipper, loadedClipper } from './geometry';
 import { LoopShapes } from './loop-shapes';
@@ -83,7 +83,7 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
     }
     const shapes = new LoopShapes();
     const loops = extractLoops(g, pruned)
-      .filter((l) => !touchesCrossing(l.edges, crossed))
+      .filter((l) => !touchesCrossing(l, crossed))
       .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm, shapes));
     const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
     const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
@@ -121,8 +121,9 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
   };
 }
 
-function touchesCrossing(edges: Int32Array, crossed: Uint8Array): boolean {
-  for (let i = 0; i < edges.length; i++) if (crossed[edges[i]] === 1) return true;
+function touchesCrossing(loop: GraphLoop, crossed: Uint8Array): boolean {
+  const { edges, start, length } = loop;
+  for (let i = start; i < start + length; i++) if (crossed[edges[i]] === 1) return true;
   return false;
 }
 

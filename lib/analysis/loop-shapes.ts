@@ -10,7 +10,7 @@
 import type { CutGraph } from './cut-graph';
 import type { GraphLoop } from './faces';
 import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from './geometry';
-import { ShapeCache } from './shape-cache';
+import { ShapeCache, type ShapeKey } from './shape-cache';
 
 // a module-level copy: an imported binding is read through an accessor on every use in the hot loops
 const GRID = SCALE;
@@ -39,6 +39,10 @@ export class LoopShapes {
   /** the key of the loop being placed, copied only when its shape is new, and its hash */
   private key = new Float64Array(256);
   private hash = 0;
+  /** views of `key` by length (a nest has few loop sizes: no view per loop) */
+  private views = new Map<number, Float64Array>();
+  /** the lookup key, refilled for each loop (find() does not keep it) */
+  private readonly probe: ShapeKey = { hash: 0, data: this.key, ox: 0, oy: 0 };
   get hits(): number { return this.cache.hits; }
   get misses(): number { return this.cache.misses; }
 
@@ -47,22 +51,22 @@ export class LoopShapes {
    * drawn with when the shape is new
    */
   place(g: CutGraph, loop: GraphLoop, toleranceMm: number): PlacedLoop {
-    const verts = loop.verts;
-    const n = verts.length;
+    const { verts, start: first, length: n } = loop;
     const vx = g.vx, vy = g.vy;
     // origin: the lowest-leftmost vertex on the grid (rounded here and again in keyOf: cheaper
     // than tables of the whole graph's rounded points, which would be mostly cache misses)
     let s = 0;
-    let ox = Math.round(vx[verts[0]] * GRID), oy = Math.round(vy[verts[0]] * GRID);
+    let ox = Math.round(vx[verts[first]] * GRID), oy = Math.round(vy[verts[first]] * GRID);
     for (let i = 1; i < n; i++) {
-      const qx = Math.round(vx[verts[i]] * GRID), qy = Math.round(vy[verts[i]] * GRID);
+      const qx = Math.round(vx[verts[first + i]] * GRID), qy = Math.round(vy[verts[first + i]] * GRID);
       if (qy < oy || (qy === oy && qx < ox)) { s = i; ox = qx; oy = qy; }
     }
     const data = this.keyOf(g, loop, s, ox, oy);
-    const k = { hash: this.hash, data, ox, oy };
+    const k = this.probe;
+    k.hash = this.hash; k.data = data; k.ox = ox; k.oy = oy;
     const found = this.cache.find(k);
     if (found) return { shape: found, ox, oy };
-    const shape = this.cache.put({ ...k, data: data.slice() }, drawShape(g, loop, s, ox, oy, toleranceMm));
+    const shape = this.cache.put({ hash: k.hash, data: data.slice(), ox, oy }, drawShape(g, loop, s, ox, oy, toleranceMm));
     return { shape, ox, oy };
   }
 
@@ -71,15 +75,17 @@ export class LoopShapes {
    * sweep as walked, centre dx, dy (zeros for a straight edge)
    */
   private keyOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): Float64Array {
-    const { verts, edges } = loop;
-    const n = verts.length;
-    if (this.key.length < 6 * n) this.key = new Float64Array(12 * n);
+    const { verts, edges, start: first, length: n } = loop;
+    if (this.key.length < 6 * n) {
+      this.key = new Float64Array(12 * n);
+      this.views.clear();
+    }
     const key = this.key;
     const vx = g.vx, vy = g.vy, eR = g.eR, eSweep = g.eSweep, eCx = g.eCx, eCy = g.eCy, eu = g.eu;
     // FNV-style over the whole numbers of the vertices and radii (the rest is compared on a hit)
     let h = 0x811c9dc5 ^ n;
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
-      const v = verts[i], e = edges[i];
+      const v = verts[first + i], e = edges[first + i];
       const dx = Math.round(vx[v] * GRID) - ox, dy = Math.round(vy[v] * GRID) - oy;
       key[o] = dx;
       key[o + 1] = dy;
@@ -99,7 +105,12 @@ export class LoopShapes {
       h = Math.imul(Math.imul(Math.imul(h ^ dx, 0x01000193) ^ dy, 0x01000193) ^ r, 0x01000193);
     }
     this.hash = h & 0x3fffffff; // a small integer: Map keys stay on the fast path
-    return key.subarray(0, 6 * n);
+    let view = this.views.get(6 * n);
+    if (!view) {
+      view = key.subarray(0, 6 * n);
+      this.views.set(6 * n, view);
+    }
+    return view;
   }
 }
 
@@ -113,29 +124,28 @@ export class LoopShapes {
  * stays convex.
  */
 function drawShape(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number, toleranceMm: number): LoopShape {
-  const { verts, edges } = loop;
-  const n = verts.length;
+  const { verts, edges, start: first, length: n } = loop;
   // first the chord count of each arc edge, so the points go straight into their arrays
   const chords = new Int32Array(n);
   let total = n;
   for (let i = 0; i < n; i++) {
-    const r = g.eR[edges[i]];
+    const r = g.eR[edges[first + i]];
     if (r <= 0) continue;
     const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
-    const m = Math.max(2, Math.ceil(Math.abs(g.eSweep[edges[i]]) / step));
+    const m = Math.max(2, Math.ceil(Math.abs(g.eSweep[edges[first + i]]) / step));
     chords[i] = m;
     total += m - 1;
   }
   const x = new Float64Array(total), y = new Float64Array(total);
   let o = 0;
   for (let c = 0, i = s; c < n; c++, i = i + 1 === n ? 0 : i + 1) {
-    const from = verts[i];
+    const from = verts[first + i];
     x[o] = Math.round(g.vx[from] * GRID) - ox;
     y[o] = Math.round(g.vy[from] * GRID) - oy;
     o++;
     const m = chords[i];
     if (m === 0) continue;
-    const e = edges[i];
+    const e = edges[first + i];
     const r = g.eR[e];
     const forward = g.eu[e] === from;
     const sweep = forward ? g.eSweep[e] : -g.eSweep[e];

@@ -26,14 +26,13 @@ export interface LoopInfo {
 export const AREA_CHORD_MM = 0.05;
 
 export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, throughZ: number, line: Uint32Array, arcToleranceMm: number, shapes = new LoopShapes()): LoopInfo {
-  const n = loop.verts.length;
+  const { edges, start: o, length: n } = loop;
   const { shape, ox, oy } = shapes.place(g, loop, Math.max(arcToleranceMm, AREA_CHORD_MM));
-  const edges = loop.edges;
   const eFirstNear = g.eFirstNear, eFirstThrough = g.eFirstThrough, eZMin = g.eZMin;
   let completed = -1, first = 0x7fffffff, freed = -1, allThrough = true, anyThrough = false, freeEdge = -1;
   let skin = Infinity;
   for (let i = 0; i < n; i++) {
-    const e = edges[i];
+    const e = edges[o + i];
     const near = eFirstNear[e];
     if (near > completed) completed = near;
     if (near < first) first = near;
@@ -56,10 +55,10 @@ export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, thro
   if (!allThrough && anyThrough) {
     // rotate to a through edge, then read the raised runs
     let s = 0;
-    while (g.eFirstThrough[loop.edges[s]] < 0) s++;
+    while (g.eFirstThrough[edges[o + s]] < 0) s++;
     let runLen = 0, runTop = -Infinity, runFirst = Infinity;
     for (let j = 1; j <= n; j++) {
-      const e = loop.edges[(s + j) % n];
+      const e = edges[o + ((s + j) % n)];
       const raised = g.eFirstThrough[e] < 0;
       if (raised) {
         runLen += g.edgeLengthMm(e);
@@ -78,7 +77,7 @@ export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, thro
     freedMove: allThrough ? freed : -1,
     completedMove: completed,
     firstMove: first === 0x7fffffff ? -1 : first,
-    tool: allThrough ? freeTool : g.eTool[loop.edges[0]],
+    tool: allThrough ? freeTool : g.eTool[edges[o]],
     tabs,
     skinMm: !allThrough && !anyThrough ? Math.max(0, skin) : 0,
   };

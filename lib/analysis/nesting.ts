@@ -102,8 +102,9 @@ function cellOf(v: number, lo: number, size: number, side: number): number {
   return k < 0 ? 0 : k >= side ? side - 1 : k;
 }
 
+/** (−1, 0 or 1: a difference of doubles handed back to the sort would be boxed on every compare) */
 function byAreaDescending(a: LoopNode, b: LoopNode): number {
-  return b.areaMm2 - a.areaMm2;
+  return b.areaMm2 > a.areaMm2 ? 1 : b.areaMm2 < a.areaMm2 ? -1 : 0;
 }
 
 function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {

@@ -180,7 +180,10 @@ export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSin
   const built: Built[] = [];
   let holeCount = 0;
   const unheld: Array<{ part: AnalysisPart; reason: string }> = [];
+  // the slugs whose findings will be listed; the rest are only counted
   const slugs: LooseSlug[] = [];
+  const slugRoom = sink.room('loose-slug');
+  let slugsCounted = 0;
   const holeNodes: LoopNode[] = [];
   for (const node of nodes) {
     if (node.depth % 2 !== 0) continue;
@@ -219,7 +222,8 @@ export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSin
         exact = shapes.slug(h, nodes);
         if (exact <= MIN_PART_AREA_MM2 || freedPieceHeld(ctx.method, exact, hi.tool, ctx.vacuumKpa, ctx.settings)) continue;
       }
-      slugs.push({ part, hole: h, line: ctx.line[hi.freedMove], areaMm2: exact });
+      if (slugs.length < slugRoom) slugs.push({ part, hole: h, line: ctx.line[hi.freedMove], areaMm2: exact });
+      else slugsCounted++;
     }
   }
   // ids in program order of the first cut; order: freed parts as they are freed, then those tabs or skin keep
@@ -230,6 +234,7 @@ export function buildParts(nodes: LoopNode[], ctx: PartContext, sink: FindingSin
   for (const u of unheld) unheldPart(sink, u.part, u.reason);
   let looseSlugs = 0;
   for (const slug of slugs) looseSlug(sink, slug, shapes, nodes, ctx);
+  sink.count('loose-slug', slugsCounted);
   for (const f of sink.findings) if (f.kind === 'loose-slug') looseSlugs++;
   return { parts: built, holes: holeCount, looseSlugs: looseSlugs + (sink.suppressed['loose-slug'] ?? 0) };
 }

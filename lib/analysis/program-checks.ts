@@ -261,40 +261,41 @@ export class ProgramChecks {
 }
 
 // The wording of each finding, in functions of their own: a closure inside motion() would make
-// V8 allocate a context for its captured values on every call, found or not.
+// V8 allocate a context for its captured values on every call, found or not. Each builds its
+// text only when the finding will be listed; a repeated fault past the kind's limit is only counted.
 
 function rapidInStock(sink: FindingSink, line: number, zLo: number, top: number): void {
-  sink.add('rapid-in-stock', 'error', line,
-    () => `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
+  if (sink.listing('rapid-in-stock')) sink.add('rapid-in-stock', 'error', line, `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
+  else sink.count('rapid-in-stock');
 }
 
 function spindleOff(sink: FindingSink, line: number, zLo: number, top: number): void {
-  sink.add('spindle-off', 'error', line,
-    () => `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
+  if (sink.listing('spindle-off')) sink.add('spindle-off', 'error', line, `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
+  else sink.count('spindle-off');
 }
 
 function straightPlunge(sink: FindingSink, line: number, depthMm: number, d: number, tool: number): void {
-  sink.add('straight-plunge', 'info', line,
-    () => `Straight plunge at line ${line}: ${fmt(depthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
+  if (sink.listing('straight-plunge')) sink.add('straight-plunge', 'info', line, `Straight plunge at line ${line}: ${fmt(depthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
+  else sink.count('straight-plunge');
 }
 
 function outsideSheet(sink: FindingSink, line: number, x: number, y: number, sheet: SheetSpec): void {
-  sink.add('outside-sheet', 'warning', line,
-    () => `Feed move at line ${line} reaches X ${fmt(x, 2)}, Y ${fmt(y, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
+  if (sink.listing('outside-sheet')) sink.add('outside-sheet', 'warning', line, `Feed move at line ${line} reaches X ${fmt(x, 2)}, Y ${fmt(y, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
+  else sink.count('outside-sheet');
 }
 
 function spoilboardDepth(sink: FindingSink, line: number, zLo: number, bottomZ: number, allowanceMm: number): void {
-  sink.add('spoilboard-depth', 'warning', line,
-    () => `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(allowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
+  if (sink.listing('spoilboard-depth')) sink.add('spoilboard-depth', 'warning', line, `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(allowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
+  else sink.count('spoilboard-depth');
 }
 
 function outsideTravel(sink: FindingSink, line: number, mach: MachineLimits): void {
   const off = mach.workOffset!;
-  sink.add('outside-travel', 'error', line,
-    () => `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
+  if (sink.listing('outside-travel')) sink.add('outside-travel', 'error', line, `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
+  else sink.count('outside-travel');
 }
 
 function feedClamped(sink: FindingSink, line: number, feedMmPerMin: number, limit: number): void {
-  sink.add('feed-clamped', 'info', line,
-    () => `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
+  if (sink.listing('feed-clamped')) sink.add('feed-clamped', 'info', line, `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
+  else sink.count('feed-clamped');
 }

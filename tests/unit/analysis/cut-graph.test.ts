@@ -112,7 +112,7 @@ describe('CutGraph', () => {
     expect(g.edgeCount).toBe(5);
     const loops = extractLoops(g);
     expect(loops.length).toBe(1);
-    expect(loops[0].edges.length).toBe(5);
+    expect(loops[0].length).toBe(5);
     // after renumbering, later retraces still find the edges at each vertex
     g.addPiece(40, 40, -18.4, 0, 40, -18.4, 20, 1);
     expect(g.edgeCount).toBe(5);
