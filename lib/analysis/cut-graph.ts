@@ -239,11 +239,8 @@ export class CutGraph {
     this.eFirstNear[id] = near;
     this.eFirstThrough[id] = through;
     this.eTool[id] = tool;
-    this.eCx[id] = 0;
-    this.eCy[id] = 0;
-    this.eR[id] = 0;
-    this.eAu[id] = 0;
-    this.eSweep[id] = 0;
+    // eCx … eSweep are 0 already (a straight edge): slots past the edge count stay zero, as the
+    // arrays are made and grown zeroed and compact() clears what it frees
     this.link(id);
     return id;
   }
@@ -383,6 +380,7 @@ export class CutGraph {
       w++;
     }
     this.eCount = w;
+    for (const a of [this.eCx, this.eCy, this.eR, this.eAu, this.eSweep]) a.fill(0, w, n);
     // the edges are renumbered: relink the lists
     this.vHead.fill(-1, 0, this.vCount);
     for (let e = 0; e < w; e++) this.link(e);

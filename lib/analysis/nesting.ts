@@ -19,9 +19,10 @@ export interface LoopNode {
   oy: number;
   /** the loop at its place as a Clipper path, made when first read (for offsets) */
   readonly path: Path;
-  areaMm2: number;
-  perimeterMm: number;
-  bbox: BBox;
+  readonly areaMm2: number;
+  readonly perimeterMm: number;
+  /** tool-centre box in mm */
+  readonly bbox: BBox;
   radiusMm: number;
   depth: number;
   parent: number;
@@ -38,13 +39,14 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
   // a uniform grid of the kept loops' boxes: a loop's container must cover the cell of its
   // origin (a point of the loop); each cell lists its loops newest first (a linked list on
   // typed arrays), so the smallest candidate container is tried first
+  // (in grid units, from each shape's box and origin: whole numbers, no box object per loop)
   let gx0 = Infinity, gy0 = Infinity, gx1 = -Infinity, gy1 = -Infinity;
   for (const n of all) {
-    const b = n.bbox;
-    if (b.minX < gx0) gx0 = b.minX;
-    if (b.minY < gy0) gy0 = b.minY;
-    if (b.maxX > gx1) gx1 = b.maxX;
-    if (b.maxY > gy1) gy1 = b.maxY;
+    const b = n.shape.box;
+    if (b[0] + n.ox < gx0) gx0 = b[0] + n.ox;
+    if (b[1] + n.oy < gy0) gy0 = b[1] + n.oy;
+    if (b[2] + n.ox > gx1) gx1 = b[2] + n.ox;
+    if (b[3] + n.oy > gy1) gy1 = b[3] + n.oy;
   }
   const side = Math.max(1, Math.min(256, Math.ceil(Math.sqrt(all.length))));
   const cw = Math.max((gx1 - gx0) / side, 1e-9), ch = Math.max((gy1 - gy0) / side, 1e-9);
@@ -56,7 +58,7 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
   for (let i = 0; i < all.length; i++) {
     const node = all[i];
     let parent = -1;
-    const c0 = cellOf(node.ox / GRID, gx0, cw, side), r0 = cellOf(node.oy / GRID, gy0, ch, side);
+    const c0 = cellOf(node.ox, gx0, cw, side), r0 = cellOf(node.oy, gy0, ch, side);
     for (let k = head[r0 * side + c0]; k >= 0; k = entryNext[k]) {
       const j = entryNode[k];
       if (contains(kept[j], node, toleranceMm)) {
@@ -79,9 +81,9 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
     }
     const id = kept.length;
     kept.push(node);
-    const b = node.bbox;
-    const ra = cellOf(b.minY, gy0, ch, side), rb = cellOf(b.maxY, gy0, ch, side);
-    const ca = cellOf(b.minX, gx0, cw, side), cb = cellOf(b.maxX, gx0, cw, side);
+    const b = node.shape.box, ox = node.ox, oy = node.oy;
+    const ra = cellOf(b[1] + oy, gy0, ch, side), rb = cellOf(b[3] + oy, gy0, ch, side);
+    const ca = cellOf(b[0] + ox, gx0, cw, side), cb = cellOf(b[2] + ox, gx0, cw, side);
     for (let r = ra; r <= rb; r++)
       for (let c = ca; c <= cb; c++) {
         if (entries === entryNode.length) {
@@ -108,11 +110,13 @@ function byAreaDescending(a: LoopNode, b: LoopNode): number {
 }
 
 function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
-  const a = outer.bbox, b = inner.bbox;
-  if (b.minX < a.minX - tol || b.maxX > a.maxX + tol || b.minY < a.minY - tol || b.maxY > a.maxY + tol) return false;
+  // the boxes in outer's frame, in grid units (whole numbers: exact)
+  const a = outer.shape.box, b = inner.shape.box;
+  const dx = inner.ox - outer.ox, dy = inner.oy - outer.oy;
+  const t = tol * GRID;
+  if (b[0] + dx < a[0] - t || b[2] + dx > a[2] + t || b[1] + dy < a[1] - t || b[3] + dy > a[3] + t) return false;
   // inner's points, moved into outer's frame (whole grid units: the test is exact either way)
   const xs = inner.shape.ring.x, ys = inner.shape.ring.y;
-  const dx = inner.ox - outer.ox, dy = inner.oy - outer.oy;
   const ring = outer.shape.ring;
   const n = xs.length;
   const step = Math.max(1, Math.floor(n / 5));
@@ -125,21 +129,27 @@ function contains(outer: LoopNode, inner: LoopNode, tol: number): boolean {
   return true;
 }
 
-/** a placed loop in the nesting; its Clipper path is made when first read (for offsets) */
+/**
+ * a placed loop in the nesting; its area and perimeter are its shape's, and its box and Clipper
+ * path are made when first read (a finding's text, the offsets): thousands of loops live
+ * through the analysis, and each number or object kept on them is copied by the collector
+ */
 class Node implements LoopNode {
-  readonly areaMm2: number;
-  readonly perimeterMm: number;
-  readonly bbox: BBox;
   depth = 0;
   parent = -1;
   children: number[] = [];
   private clipperPath: Path | null = null;
+  private box: BBox | null = null;
 
-  constructor(readonly info: LoopInfo, readonly shape: LoopShape, readonly ox: number, readonly oy: number, readonly radiusMm: number) {
-    const box = shape.box;
-    this.areaMm2 = shape.areaMm2;
-    this.perimeterMm = shape.perimeterMm;
-    this.bbox = { minX: (box[0] + ox) / GRID, minY: (box[1] + oy) / GRID, maxX: (box[2] + ox) / GRID, maxY: (box[3] + oy) / GRID };
+  constructor(readonly info: LoopInfo, readonly shape: LoopShape, readonly ox: number, readonly oy: number, readonly radiusMm: number) {}
+
+  get areaMm2(): number { return this.shape.areaMm2; }
+  get perimeterMm(): number { return this.shape.perimeterMm; }
+
+  get bbox(): BBox {
+    if (this.box) return this.box;
+    const b = this.shape.box, ox = this.ox, oy = this.oy;
+    return (this.box = { minX: (b[0] + ox) / GRID, minY: (b[1] + oy) / GRID, maxX: (b[2] + ox) / GRID, maxY: (b[3] + oy) / GRID });
   }
 
   get path(): Path {

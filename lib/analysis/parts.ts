@@ -106,6 +106,10 @@ export class PartShapes {
   readonly parts = new ShapeCache<RelShape>();
   readonly slugs = new ShapeCache<number>();
   private readonly ids = new Map<LoopShape, number>();
+  /** the key being looked up, in a buffer reused from part to part (copied only into the cache) */
+  private buf = new Float64Array(64);
+  private readonly views = new Map<number, Float64Array>();
+  private readonly probe: ShapeKey = { hash: 0, data: this.buf, ox: 0, oy: 0 };
 
   private idOf(shape: LoopShape): number {
     let id = this.ids.get(shape);
@@ -116,9 +120,21 @@ export class PartShapes {
     return id;
   }
 
-  /** the key of a loop with the loops inside it, relative to the first one's origin */
+  /**
+   * the key of a loop with the loops inside it, relative to the first one's origin: the probe,
+   * valid until the next call (put() a copy)
+   */
   private key(outer: LoopNode, inner: LoopNode[]): ShapeKey {
-    const data = new Float64Array(3 + 4 * inner.length);
+    const size = 3 + 4 * inner.length;
+    if (this.buf.length < size) {
+      this.buf = new Float64Array(2 * size);
+      this.views.clear();
+    }
+    let data = this.views.get(size);
+    if (!data) {
+      data = this.buf.subarray(0, size);
+      this.views.set(size, data);
+    }
     data[0] = this.idOf(outer.shape);
     data[1] = outer.radiusMm;
     data[2] = inner.length;
@@ -130,7 +146,13 @@ export class PartShapes {
       data[o++] = h.oy - outer.oy;
       data[o++] = h.radiusMm;
     }
-    return { hash: hashNumbers(data), data, ox: outer.ox, oy: outer.oy };
+    const k = this.probe;
+    k.hash = hashNumbers(data); k.data = data; k.ox = outer.ox; k.oy = outer.oy;
+    return k;
+  }
+
+  private static kept(k: ShapeKey): ShapeKey {
+    return { hash: k.hash, data: k.data.slice(), ox: k.ox, oy: k.oy };
   }
 
   part(node: LoopNode, holeNodes: LoopNode[]): PlacedShape {
@@ -139,7 +161,7 @@ export class PartShapes {
     if (!rel) {
       const s = partShape(node, holeNodes);
       const outline = s.outline.map((p) => translatePath(p, -k.ox, -k.oy));
-      rel = this.parts.put(k, { ...s, outline, box: pathsGridBox(outline) });
+      rel = this.parts.put(PartShapes.kept(k), { ...s, outline, box: pathsGridBox(outline) });
     }
     return new PlacedShape(rel, k.ox, k.oy);
   }
@@ -149,7 +171,7 @@ export class PartShapes {
     for (const c of hole.children) kids.push(nodes[c]);
     const k = this.key(hole, kids);
     const area = this.slugs.find(k);
-    return area ?? this.slugs.put(k, slugOf(hole, nodes));
+    return area ?? this.slugs.put(PartShapes.kept(k), slugOf(hole, nodes));
   }
 }
 
