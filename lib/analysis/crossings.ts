@@ -83,24 +83,22 @@ function piled(items: Int32Array, lo: number, hi: number, lengths: Float64Array,
   return sum > DENSE_CELL_SPANS * cell;
 }
 
-/** `alive` marks the edges to test (dangling ends cannot bound a part and are left out) */
+/**
+ * `alive` marks the edges to test (dangling ends cannot bound a part and are left out). Each pass
+ * over the edges or cells is a function of its own: this runs once per analysis, so V8 compiles
+ * its loops on the fly (on-stack replacement), and in one long function each loop's compiled
+ * code gave up where the next loop began, for the first few analyses of a process.
+ */
 export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Array): { crossed: Uint8Array; crossings: Crossing[] } {
   const E = g.edgeCount;
   const crossed = new Uint8Array(E);
   const crossings: Crossing[] = [];
   if (E < 2) return { crossed, crossings };
-  const { vx, vy, eu, ev } = g;
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity, total = 0;
   // each edge's length, once: a pair test needs both (an edge meets a few others per cell)
   const lengths = new Float64Array(E);
-  for (let e = 0; e < E; e++) {
-    const ax = vx[eu[e]], ay = vy[eu[e]], bx = vx[ev[e]], by = vy[ev[e]];
-    minX = Math.min(minX, ax, bx); maxX = Math.max(maxX, ax, bx);
-    minY = Math.min(minY, ay, by); maxY = Math.max(maxY, ay, by);
-    const len = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
-    lengths[e] = len;
-    total += len;
-  }
+  const box = new Float64Array(5); // minX minY maxX maxY, total length
+  measureEdges(g, lengths, box);
+  const minX = box[0], minY = box[1], maxX = box[2], maxY = box[3], total = box[4];
   // about one cell per edge at most: a sparse nest over a wide area must not count and walk
   // millions of empty cells (four per edge took half as long again on the generated nest)
   const cell = Math.max(toleranceMm * 10, (total / E) / 2, Math.max(maxX - minX, maxY - minY) / 4096, Math.sqrt(((maxX - minX) * (maxY - minY)) / E));
@@ -108,9 +106,34 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
   const ny = Math.floor((maxY - minY) / cell) + 1;
   // one traversal per edge, its cells kept in order; then count them and fill the cells' lists (CSR)
   const grid: Grid = { minX, minY, cell, nx, ny };
-  const room = nx + ny + 5;
-  let cells = new Int32Array(Math.max(1024, 4 * E));
   const cellsFrom = new Int32Array(E + 1);
+  const cells = walkEdges(g, grid, alive, cellsFrom);
+  const counts = new Int32Array(nx * ny + 1);
+  const items = bucket(cells, cellsFrom, E, nx * ny, counts);
+  testCells(g, grid, counts, items, lengths, toleranceMm, crossed, crossings);
+  return { crossed, crossings };
+}
+
+/** each edge's length into lengths; the edges' box and their total length into box */
+function measureEdges(g: CutGraph, lengths: Float64Array, box: Float64Array): void {
+  const { vx, vy, eu, ev } = g;
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity, total = 0;
+  for (let e = 0; e < lengths.length; e++) {
+    const ax = vx[eu[e]], ay = vy[eu[e]], bx = vx[ev[e]], by = vy[ev[e]];
+    minX = Math.min(minX, ax, bx); maxX = Math.max(maxX, ax, bx);
+    minY = Math.min(minY, ay, by); maxY = Math.max(maxY, ay, by);
+    const len = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
+    lengths[e] = len;
+    total += len;
+  }
+  box[0] = minX; box[1] = minY; box[2] = maxX; box[3] = maxY; box[4] = total;
+}
+
+/** the cells of every live edge, one edge after another (edge e's at cellsFrom[e] …) */
+function walkEdges(g: CutGraph, grid: Grid, alive: Uint8Array, cellsFrom: Int32Array): Int32Array {
+  const E = cellsFrom.length - 1;
+  const room = grid.nx + grid.ny + 5;
+  let cells = new Int32Array(Math.max(1024, 4 * E));
   let w = 0;
   for (let e = 0; e < E; e++) {
     cellsFrom[e] = w;
@@ -121,12 +144,24 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
     w = walkCells(g, e, grid, cells, w);
   }
   cellsFrom[E] = w;
-  const counts = new Int32Array(nx * ny + 1);
+  return cells;
+}
+
+/** the edges of each cell c at items[counts[c] … counts[c + 1]) (counts: n + 1 zeros in, offsets out) */
+function bucket(cells: Int32Array, cellsFrom: Int32Array, E: number, n: number, counts: Int32Array): Int32Array {
+  const w = cellsFrom[E];
   for (let j = 0; j < w; j++) counts[cells[j] + 1]++;
-  for (let c = 0; c < nx * ny; c++) counts[c + 1] += counts[c];
-  const fill = counts.slice(0, nx * ny);
-  const items = new Int32Array(counts[nx * ny]);
+  for (let c = 0; c < n; c++) counts[c + 1] += counts[c];
+  const fill = counts.slice(0, n);
+  const items = new Int32Array(counts[n]);
   for (let e = 0; e < E; e++) for (let j = cellsFrom[e]; j < cellsFrom[e + 1]; j++) items[fill[cells[j]]++] = e;
+  return items;
+}
+
+/** the pair tests, cell by cell: crossings counted in the cell that holds them */
+function testCells(g: CutGraph, grid: Grid, counts: Int32Array, items: Int32Array, lengths: Float64Array, toleranceMm: number, crossed: Uint8Array, crossings: Crossing[]): void {
+  const { vx, vy, eu, ev } = g;
+  const { minX, minY, cell, nx, ny } = grid;
   let tests = 0;
   for (let c = 0; c < nx * ny && tests < MAX_PAIR_TESTS; c++) {
     const lo = counts[c], hi = counts[c + 1];
@@ -166,5 +201,4 @@ export function findCrossings(g: CutGraph, toleranceMm: number, alive: Uint8Arra
       }
     }
   }
-  return { crossed, crossings };
 }
