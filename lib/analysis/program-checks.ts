@@ -215,9 +215,10 @@ export class ProgramChecks {
       }
       const feedMmPerMin = m[11];
       if (kind !== 0 && feedMmPerMin > 0) {
-        if (feedMmPerMin <= k[K_FEED_LOW]) {
-          // at most the lowest axis limit: no direction of the move can limit it (each axis'
-          // limit along the move, maxFeed·len/|d| with |d| ≤ len, is at least that axis' maxFeed)
+        if (feedMmPerMin <= k[K_FEED_LOW] || (feedMmPerMin <= k[K_ARC_FEED] && (kind === 2 || Math.abs(z1 - z0) <= EPS))) {
+          // at most the lowest axis limit, or the lower XY limit on an arc or a level move: no
+          // direction of the move can limit it (each axis' limit along the move, maxFeed·len/|d|
+          // with |d| ≤ len, is at least that axis' maxFeed; a level move's Z part counts as none)
           st[S_FEED_RUN] = -1;
         } else {
           this.feedLimit(line, kind, feedMmPerMin);

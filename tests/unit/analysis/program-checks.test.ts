@@ -79,6 +79,17 @@ describe('program checks', () => {
     expect(f.map((x) => x.line)).toEqual([4]);
   });
 
+  it('feed-clamped between the Z and the XY limits: F25000 level or on an arc is not clamped; a steep ramp at F25000 is', () => {
+    // limit along a move = min over moving axes of maxFeed·len/|d|: a level move has no Z part
+    // (limit ≥ 30000); the 45° ramp from Z 5 to Z −5 over 10 mm of X has len 10√2, so Z allows
+    // 10000·√2 ≈ 14142 mm/min; a shallow ramp (10 mm down over 100 mm) allows 10000·√(100² + 10²)/10 ≈ 100499
+    const w = new ProgramWriter();
+    w.rapid(0, 0, 5).feed(500, 0, 5, 25000).arc(500, 100, 5, 500, 50, false, 25000).feed(510, 100, -5, 25000)
+      .feed(610, 100, -15, 25000).arc(610, 200, -15, 610, 150, false, 31000);
+    const f = ofKind(analyze(w.build(), job(18, 'tape-glue', { machine })), 'feed-clamped');
+    expect(f.map((x) => x.line)).toEqual([4, 6]);
+  });
+
   it('outside-sheet by an arc: its bulge, not its end points, decides; the square about its circle does not', () => {
     // half circles of radius 15 about (1210, 100) from (1210, 85) to (1210, 115) on the 1220 mm
     // wide sheet: counter-clockwise through the rightmost point X 1225, beyond the edge by more
