@@ -13,7 +13,7 @@ const machine = path.join(root, 'fixtures/machines/router-1.json');
 const t1 = JSON.parse(readFileSync(machine, 'utf8')).tools.find((t: { number: number }) => t.number === 1);
 
 function estimateJson(...extra: string[]) {
-  const r = spawnSync('npx', ['tsx', 'scripts/estimate.ts', program, '--machine', machine, '--sheet', '600x400x18', '--json', ...extra], { cwd: root, encoding: 'utf8' });
+  const r = spawnSync('node', ['--require', 'tsx/cjs', 'scripts/estimate.ts', program, '--machine', machine, '--sheet', '600x400x18', '--json', ...extra], { cwd: root, encoding: 'utf8' });
   expect(r.stderr).toBe('');
   expect(r.status).toBe(0);
   return JSON.parse(r.stdout);

@@ -39,7 +39,7 @@ const file = path.join(dir, 'shelf-bracket.nc');
 writeFileSync(file, program);
 
 function cli(...args: string[]) {
-  return spawnSync('npx', ['tsx', 'scripts/estimate.ts', ...args], { cwd: root, encoding: 'utf8' });
+  return spawnSync('node', ['--require', 'tsx/cjs', 'scripts/estimate.ts', ...args], { cwd: root, encoding: 'utf8' });
 }
 
 describe('estimate CLI', () => {
