@@ -81,7 +81,7 @@ export class LoopShapes {
       this.views.clear();
     }
     const key = this.key;
-    const vx = g.vx, vy = g.vy, eR = g.eR, eSweep = g.eSweep, eCx = g.eCx, eCy = g.eCy, eu = g.eu;
+    const vx = g.vx, vy = g.vy, eArc = g.eArc, aR = g.aR, aSweep = g.aSweep, aCx = g.aCx, aCy = g.aCy, eu = g.eu;
     // FNV-style over the whole numbers of the vertices and radii (the rest is compared on a hit)
     let h = 0x811c9dc5 ^ n;
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
@@ -90,12 +90,13 @@ export class LoopShapes {
       key[o] = dx;
       key[o + 1] = dy;
       let r = 0;
-      if (eR[e] > 0) {
-        r = Math.round(eR[e] * GRID);
-        const sw = Math.round(eSweep[e] * ANGLE_UNITS);
+      const k = eArc[e];
+      if (aR[k] > 0) {
+        r = Math.round(aR[k] * GRID);
+        const sw = Math.round(aSweep[k] * ANGLE_UNITS);
         key[o + 3] = eu[e] === v ? sw : -sw;
-        key[o + 4] = Math.round(eCx[e] * GRID) - ox;
-        key[o + 5] = Math.round(eCy[e] * GRID) - oy;
+        key[o + 4] = Math.round(aCx[k] * GRID) - ox;
+        key[o + 5] = Math.round(aCy[k] * GRID) - oy;
       } else {
         key[o + 3] = 0;
         key[o + 4] = 0;
@@ -129,10 +130,11 @@ function drawShape(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: numb
   const chords = new Int32Array(n);
   let total = n;
   for (let i = 0; i < n; i++) {
-    const r = g.eR[edges[first + i]];
+    const k = g.eArc[edges[first + i]];
+    const r = g.aR[k];
     if (r <= 0) continue;
     const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
-    const m = Math.max(2, Math.ceil(Math.abs(g.eSweep[edges[first + i]]) / step));
+    const m = Math.max(2, Math.ceil(Math.abs(g.aSweep[k]) / step));
     chords[i] = m;
     total += m - 1;
   }
@@ -146,12 +148,13 @@ function drawShape(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: numb
     const m = chords[i];
     if (m === 0) continue;
     const e = edges[first + i];
-    const r = g.eR[e];
+    const a = g.eArc[e];
+    const r = g.aR[a];
     const forward = g.eu[e] === from;
-    const sweep = forward ? g.eSweep[e] : -g.eSweep[e];
-    const a0 = forward ? g.eAu[e] : g.eAu[e] + g.eSweep[e];
+    const sweep = forward ? g.aSweep[a] : -g.aSweep[a];
+    const a0 = forward ? g.aAu[a] : g.aAu[a] + g.aSweep[a];
     const rho = areaRadius(r, Math.abs(sweep), m);
-    const cx = g.eCx[e], cy = g.eCy[e];
+    const cx = g.aCx[a], cy = g.aCy[a];
     for (let k = 1; k < m; k++) {
       x[o] = Math.round((cx + rho * Math.cos(a0 + (sweep * k) / m)) * GRID) - ox;
       y[o] = Math.round((cy + rho * Math.sin(a0 + (sweep * k) / m)) * GRID) - oy;

@@ -95,13 +95,13 @@ function flatArc(arcs: MoveList['arcs'], c: number, m: Float64Array, ext: Float6
 }
 
 /**
- * about how many edges (and points) the cut graph will get: a cheap pass over the moves
- * counting the pieces near the bottom, so that its arrays are sized once rather than grown
- * (each growth copies all fourteen of them)
+ * about how many edges (and points) the cut graph will get, and how many of them arcs: a cheap
+ * pass over the moves counting the pieces near the bottom, so that its arrays are sized once
+ * rather than grown (each growth copies all of them)
  */
-function graphCapacity(moves: MoveList, bandTop: number): number {
+function graphCapacity(moves: MoveList, bandTop: number): { edges: number; arcs: number } {
   const { z, kind, arcs } = moves;
-  let pieces = 0;
+  let pieces = 0, arcPieces = 0;
   let pz = moves.startZ;
   for (let i = 0; i < moves.count; i++) {
     const z1 = z[i];
@@ -114,16 +114,20 @@ function graphCapacity(moves: MoveList, bandTop: number): number {
     const z0 = i > 0 ? z[i - 1] : moves.startZ;
     if (!(z0 <= bandTop || z[i] <= bandTop)) continue;
     // flat arcs become sub-arcs of SUB_ARC_RAD at most; others, chords: a guess, the arrays still grow
-    const sub = arcs.plane[c] === 0 && z0 === z[i] ? Math.ceil(Math.abs(arcs.sweep[c]) / SUB_ARC_RAD) : 16;
-    pieces += sub >= 1 && sub <= 1024 ? sub : 16;
+    const flat = arcs.plane[c] === 0 && z0 === z[i];
+    const sub = flat ? Math.ceil(Math.abs(arcs.sweep[c]) / SUB_ARC_RAD) : 16;
+    const n = sub >= 1 && sub <= 1024 ? sub : 16;
+    pieces += n;
+    if (flat) arcPieces += n;
   }
-  return Math.max(1 << 14, pieces);
+  return { edges: Math.max(1 << 14, pieces), arcs: arcPieces };
 }
 
 export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramChecks): ScanResult {
   const { x, y, z, kind, flags, tool, feed, line, arcs } = moves;
   const n = moves.count;
-  const graph = levels.throughZ !== null ? new CutGraph(levels.chainToleranceMm, levels.throughZ, graphCapacity(moves, levels.bandTopZ ?? -Infinity)) : null;
+  const capacity = levels.throughZ !== null ? graphCapacity(moves, levels.bandTopZ ?? -Infinity) : null;
+  const graph = capacity && levels.throughZ !== null ? new CutGraph(levels.chainToleranceMm, levels.throughZ, capacity.edges, capacity.arcs) : null;
   const band = graph && levels.bandTopZ !== null && levels.throughZ !== null
     ? new BandCollector(graph, levels.throughZ, levels.bandTopZ, levels.stockTopZ ?? Infinity, levels.tabMaxLengthMm)
     : null;
