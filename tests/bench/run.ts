@@ -7,8 +7,8 @@
 // code into plain scripts, and the figures here match an esbuild bundle of the same code to a
 // few per cent. Loaded through the `tsx` command, whose ESM loader evaluates every module, the
 // same code ran 15–25% slower in its long loops (measured on the analysis's move pass: 155 ms
-// against 131 ms, with the compiled code byte for byte the same), so figures taken that way
-// would measure the loader rather than the code.
+// against 131 ms, the modules compiled by esbuild with the same options either way), so
+// figures taken that way would measure the loader rather than the code.
 import { readdirSync } from 'node:fs';
 import path from 'node:path';
 
