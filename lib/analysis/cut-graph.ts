@@ -8,6 +8,7 @@
 // Closed loops are then read off this graph (faces.ts), whichever pass made them. A flat arc
 // stays an arc: it becomes sub-arcs of at most 45° (few edges, exact chords made only for the
 // loops found), and tabs, ramps and helices become straight chords.
+import { EdgeArcs } from './edge-arcs';
 import { KeyTable } from './key-table';
 import { len2 } from './vec';
 import { grownF64, grownI32 } from './typed-arrays';
@@ -33,19 +34,9 @@ export class CutGraph {
   /** move index that first cut the edge through, −1 while never */
   eFirstThrough: Int32Array;
   eTool: Int32Array;
-  /**
-   * each edge's slot in the arc table: 0 for a straight edge (slot 0 is all zeros: radius 0),
-   * k > 0 for an arc edge. A third of the edges are arcs, so their five numbers are kept apart
-   * rather than in five columns over every edge (12 MB less memory on the generated nest).
-   */
+  /** each edge's slot in `arcs`: 0 for a straight edge, k > 0 for an arc edge */
   eArc: Int32Array;
-  /** arc slots: centre, radius, angle at end u, signed sweep from u to v */
-  aCx: Float64Array;
-  aCy: Float64Array;
-  aR: Float64Array;
-  aAu: Float64Array;
-  aSweep: Float64Array;
-  private aCount = 1;
+  readonly arcs: EdgeArcs;
   /** first edge end at each vertex (2e for end u of edge e, 2e + 1 for end v), −1 for none */
   private vHead: Int32Array;
   /** the next edge end at the same vertex, −1 at the list's end */
@@ -72,20 +63,13 @@ export class CutGraph {
     this.eZMin = new Float64Array(n); this.eZTop = new Float64Array(n);
     this.eFirstNear = new Int32Array(n); this.eFirstThrough = new Int32Array(n); this.eTool = new Int32Array(n);
     this.eArc = new Int32Array(n);
-    const na = Math.max(64, arcHint + 1);
-    this.aCx = new Float64Array(na); this.aCy = new Float64Array(na); this.aR = new Float64Array(na);
-    this.aAu = new Float64Array(na); this.aSweep = new Float64Array(na);
+    this.arcs = new EdgeArcs(arcHint);
     this.vHead = new Int32Array(n); this.hNext = new Int32Array(2 * n);
     this.vertexByKey = new KeyTable(capacityHint);
   }
 
-  get edgeCount(): number {
-    return this.eCount;
-  }
-
-  get vertexCount(): number {
-    return this.vCount;
-  }
+  get edgeCount(): number { return this.eCount; }
+  get vertexCount(): number { return this.vCount; }
 
   private growVertices(): void {
     const n = this.vx.length * 2;
@@ -103,20 +87,14 @@ export class CutGraph {
     this.hNext = grownI32(this.hNext, 2 * n);
   }
 
-  private growArcs(): void {
-    const n = this.aR.length * 2;
-    this.aCx = grownF64(this.aCx, n); this.aCy = grownF64(this.aCy, n); this.aR = grownF64(this.aR, n);
-    this.aAu = grownF64(this.aAu, n); this.aSweep = grownF64(this.aSweep, n);
-  }
-
   /** the live edge u–v, an arc edge or a straight one as asked, or −1 */
   private findEdge(u: number, v: number, arc: boolean): number {
-    const eu = this.eu, ev = this.ev, eArc = this.eArc, aR = this.aR, next = this.hNext;
+    const eu = this.eu, ev = this.ev, eArc = this.eArc, r = this.arcs.r, next = this.hNext;
     for (let h = this.vHead[u]; h >= 0; h = next[h]) {
       const e = h >> 1;
       const a = eu[e];
       if (a < 0) continue; // replaced by zipOverlaps
-      if ((h & 1 ? a : ev[e]) === v && aR[eArc[e]] > 0 === arc) return e;
+      if ((h & 1 ? a : ev[e]) === v && r[eArc[e]] > 0 === arc) return e;
     }
     return -1;
   }
@@ -235,14 +213,13 @@ export class CutGraph {
           const step = sweep / n;
           if (r > 0) {
             // (a zero radius stays a straight edge, as the arc tests read it)
-            const k = this.aCount++;
-            if (k === this.aR.length) this.growArcs();
+            const t = this.arcs, k = t.slot();
             this.eArc[id] = k;
-            this.aCx[k] = cx;
-            this.aCy[k] = cy;
-            this.aR[k] = r;
-            this.aAu[k] = a === u ? startAngle : startAngle + step;
-            this.aSweep[k] = a === u ? step : -step;
+            t.cx[k] = cx;
+            t.cy[k] = cy;
+            t.r[k] = r;
+            t.au[k] = a === u ? startAngle : startAngle + step;
+            t.sweep[k] = a === u ? step : -step;
           }
         } else {
           this.record(e, move, through, tool);
@@ -412,7 +389,7 @@ export class CutGraph {
 
   edgeLengthMm(e: number): number {
     const k = this.eArc[e];
-    if (k > 0) return this.aR[k] * Math.abs(this.aSweep[k]);
+    if (k > 0) return this.arcs.r[k] * Math.abs(this.arcs.sweep[k]);
     const u = this.eu[e], v = this.ev[e];
     return len2(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
   }

@@ -81,7 +81,7 @@ export class LoopShapes {
       this.views.clear();
     }
     const key = this.key;
-    const vx = g.vx, vy = g.vy, eArc = g.eArc, aR = g.aR, aSweep = g.aSweep, aCx = g.aCx, aCy = g.aCy, eu = g.eu;
+    const vx = g.vx, vy = g.vy, eArc = g.eArc, aR = g.arcs.r, aSweep = g.arcs.sweep, aCx = g.arcs.cx, aCy = g.arcs.cy, eu = g.eu;
     // FNV-style over the whole numbers of the vertices and radii (the rest is compared on a hit)
     let h = 0x811c9dc5 ^ n;
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
@@ -131,10 +131,10 @@ function drawShape(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: numb
   let total = n;
   for (let i = 0; i < n; i++) {
     const k = g.eArc[edges[first + i]];
-    const r = g.aR[k];
+    const r = g.arcs.r[k];
     if (r <= 0) continue;
     const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
-    const m = Math.max(2, Math.ceil(Math.abs(g.aSweep[k]) / step));
+    const m = Math.max(2, Math.ceil(Math.abs(g.arcs.sweep[k]) / step));
     chords[i] = m;
     total += m - 1;
   }
@@ -148,13 +148,13 @@ function drawShape(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: numb
     const m = chords[i];
     if (m === 0) continue;
     const e = edges[first + i];
-    const a = g.eArc[e];
-    const r = g.aR[a];
+    const a = g.eArc[e], arcs = g.arcs;
+    const r = arcs.r[a];
     const forward = g.eu[e] === from;
-    const sweep = forward ? g.aSweep[a] : -g.aSweep[a];
-    const a0 = forward ? g.aAu[a] : g.aAu[a] + g.aSweep[a];
+    const sweep = forward ? arcs.sweep[a] : -arcs.sweep[a];
+    const a0 = forward ? arcs.au[a] : arcs.au[a] + arcs.sweep[a];
     const rho = areaRadius(r, Math.abs(sweep), m);
-    const cx = g.aCx[a], cy = g.aCy[a];
+    const cx = arcs.cx[a], cy = arcs.cy[a];
     for (let k = 1; k < m; k++) {
       x[o] = Math.round((cx + rho * Math.cos(a0 + (sweep * k) / m)) * GRID) - ox;
       y[o] = Math.round((cy + rho * Math.sin(a0 + (sweep * k) / m)) * GRID) - oy;

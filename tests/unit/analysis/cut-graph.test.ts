@@ -94,7 +94,7 @@ describe('CutGraph', () => {
     g.addPiece(-10, 0, -18.2, 10, 0, -18.2, 2, 1);
     expect(g.edgeCount).toBe(5);
     let arcs = 0;
-    for (let e = 0; e < g.edgeCount; e++) if (g.aR[g.eArc[e]] > 0) { arcs++; expect(g.eZMin[e]).toBe(-18.3); }
+    for (let e = 0; e < g.edgeCount; e++) if (g.arcs.r[g.eArc[e]] > 0) { arcs++; expect(g.eZMin[e]).toBe(-18.3); }
     expect(arcs).toBe(4);
     // the half disc is one bounded face of area πr²/2 > 0
     expect(extractLoops(g).length).toBe(1);
