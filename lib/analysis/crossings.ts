@@ -58,6 +58,11 @@ function walkCells(g: CutGraph, e: number, grid: Grid, out: Int32Array, at: numb
   const bx = (g.vx[g.ev[e]] - minX) / cell, by = (g.vy[g.ev[e]] - minY) / cell;
   let cx = Math.min(nx - 1, Math.floor(ax)), cy = Math.min(ny - 1, Math.floor(ay));
   const ex = Math.min(nx - 1, Math.floor(bx)), ey = Math.min(ny - 1, Math.floor(by));
+  if (cx === ex && cy === ey) {
+    // within one cell, as most edges are (cells are several edges long): no traversal
+    out[at++] = cy * nx + cx;
+    return at;
+  }
   const dx = bx - ax, dy = by - ay;
   const sx = dx > 0 ? 1 : -1, sy = dy > 0 ? 1 : -1;
   const tdx = dx !== 0 ? Math.abs(1 / dx) : Infinity, tdy = dy !== 0 ? Math.abs(1 / dy) : Infinity;
