@@ -118,6 +118,39 @@ describe('CutGraph', () => {
     expect(g.edgeCount).toBe(5);
   });
 
+  it('faces: a square cut either way round gives one counter-clockwise loop; two squares sharing a side give two', () => {
+    // each loop's edges must join its consecutive vertices, and its shoelace area be positive
+    // (the bounded faces; the outside face is left out): 400 mm² per 20 mm square
+    const check = (g: CutGraph, areas: number[]) => {
+      const loops = extractLoops(g);
+      const got: number[] = [];
+      for (const l of loops) {
+        let a2 = 0;
+        for (let i = 0; i < l.length; i++) {
+          const v = l.verts[l.start + i], w = l.verts[l.start + ((i + 1) % l.length)], e = l.edges[l.start + i];
+          expect([g.eu[e], g.ev[e]].sort()).toEqual([v, w].sort());
+          a2 += g.vx[v] * g.vy[w] - g.vx[w] * g.vy[v];
+        }
+        got.push(a2 / 2);
+      }
+      expect(got.map((a) => Math.round(a)).sort()).toEqual(areas);
+    };
+    const ccw = new CutGraph(0.01, THROUGH_Z);
+    square(ccw, 0, 0, 20, -18.2, 0);
+    check(ccw, [400]);
+    // clockwise: the first walk from edge 0 goes round the outside, so the loop is read off it backwards
+    const cw = new CutGraph(0.01, THROUGH_Z);
+    const pts = [[0, 0], [0, 20], [20, 20], [20, 0], [0, 0]];
+    for (let i = 1; i < pts.length; i++) cw.addPiece(pts[i - 1][0], pts[i - 1][1], -18.2, pts[i][0], pts[i][1], -18.2, i, 1);
+    check(cw, [400]);
+    // two squares side by side sharing the side X 20: junctions of three edges at its ends
+    const two = new CutGraph(0.01, THROUGH_Z);
+    square(two, 0, 0, 20, -18.2, 0);
+    square(two, 20, 0, 20, -18.2, 10);
+    expect(two.edgeCount).toBe(7);
+    check(two, [400, 400]);
+  });
+
   it('two diagonals of a square cross once at its centre; the sides alone do not cross', () => {
     const g = new CutGraph(0.01, THROUGH_Z);
     square(g, 0, 0, 20, -18.2, 0);
