@@ -10,7 +10,7 @@
 import type { CutGraph } from './cut-graph';
 import type { GraphLoop } from './faces';
 import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from './geometry';
-import { ShapeCache, type ShapeKey } from './shape-cache';
+import { ScratchKey, ShapeCache } from './shape-cache';
 
 // a module-level copy: an imported binding is read through an accessor on every use in the hot loops
 const GRID = SCALE;
@@ -36,13 +36,9 @@ const ANGLE_UNITS = 1e9;
 
 export class LoopShapes {
   private readonly cache = new ShapeCache<LoopShape>();
-  /** the key of the loop being placed, copied only when its shape is new, and its hash */
-  private key = new Float64Array(256);
+  /** the key of the loop being placed (copied only when its shape is new), and its hash */
+  private readonly scratch = new ScratchKey();
   private hash = 0;
-  /** views of `key` by length (a nest has few loop sizes: no view per loop) */
-  private views = new Map<number, Float64Array>();
-  /** the lookup key, refilled for each loop (find() does not keep it) */
-  private readonly probe: ShapeKey = { hash: 0, data: this.key, ox: 0, oy: 0 };
   get hits(): number { return this.cache.hits; }
   get misses(): number { return this.cache.misses; }
 
@@ -62,11 +58,10 @@ export class LoopShapes {
       if (qy < oy || (qy === oy && qx < ox)) { s = i; ox = qx; oy = qy; }
     }
     const data = this.keyOf(g, loop, s, ox, oy);
-    const k = this.probe;
-    k.hash = this.hash; k.data = data; k.ox = ox; k.oy = oy;
+    const k = this.scratch.key(this.hash, data, ox, oy);
     const found = this.cache.find(k);
     if (found) return { shape: found, ox, oy };
-    const shape = this.cache.put({ hash: k.hash, data: data.slice(), ox, oy }, drawShape(g, loop, s, ox, oy, toleranceMm));
+    const shape = this.cache.put(ScratchKey.kept(k), drawShape(g, loop, s, ox, oy, toleranceMm));
     return { shape, ox, oy };
   }
 
@@ -76,11 +71,7 @@ export class LoopShapes {
    */
   private keyOf(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: number): Float64Array {
     const { verts, edges, start: first, length: n } = loop;
-    if (this.key.length < 6 * n) {
-      this.key = new Float64Array(12 * n);
-      this.views.clear();
-    }
-    const key = this.key;
+    const key = this.scratch.data(6 * n);
     const vx = g.vx, vy = g.vy, eArc = g.eArc, aR = g.arcs.r, aSweep = g.arcs.sweep, aCx = g.arcs.cx, aCy = g.arcs.cy, eu = g.eu;
     // FNV-style over the whole numbers of the vertices and radii (the rest is compared on a hit)
     let h = 0x811c9dc5 ^ n;
@@ -106,12 +97,7 @@ export class LoopShapes {
       h = Math.imul(Math.imul(Math.imul(h ^ dx, 0x01000193) ^ dy, 0x01000193) ^ r, 0x01000193);
     }
     this.hash = h & 0x3fffffff; // a small integer: Map keys stay on the fast path
-    let view = this.views.get(6 * n);
-    if (!view) {
-      view = key.subarray(0, 6 * n);
-      this.views.set(6 * n, view);
-    }
-    return view;
+    return key;
   }
 }
 

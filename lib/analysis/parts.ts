@@ -10,7 +10,7 @@ import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pa
 import { freedPieceHeld, freedPieceHold } from './hold';
 import type { LoopNode } from './nesting';
 import type { LoopShape } from './loop-shapes';
-import { hashNumbers, ShapeCache, translatePath, type ShapeKey } from './shape-cache';
+import { hashNumbers, ScratchKey, ShapeCache, translatePath, type ShapeKey } from './shape-cache';
 import type { AnalysisSettings } from './settings';
 import type { AnalysisPart, BBox, HoldDownMethod } from './types';
 
@@ -107,9 +107,7 @@ export class PartShapes {
   readonly slugs = new ShapeCache<number>();
   private readonly ids = new Map<LoopShape, number>();
   /** the key being looked up, in a buffer reused from part to part (copied only into the cache) */
-  private buf = new Float64Array(64);
-  private readonly views = new Map<number, Float64Array>();
-  private readonly probe: ShapeKey = { hash: 0, data: this.buf, ox: 0, oy: 0 };
+  private readonly scratch = new ScratchKey();
 
   private idOf(shape: LoopShape): number {
     let id = this.ids.get(shape);
@@ -125,16 +123,7 @@ export class PartShapes {
    * valid until the next call (put() a copy)
    */
   private key(outer: LoopNode, inner: LoopNode[]): ShapeKey {
-    const size = 3 + 4 * inner.length;
-    if (this.buf.length < size) {
-      this.buf = new Float64Array(2 * size);
-      this.views.clear();
-    }
-    let data = this.views.get(size);
-    if (!data) {
-      data = this.buf.subarray(0, size);
-      this.views.set(size, data);
-    }
+    const data = this.scratch.data(3 + 4 * inner.length);
     data[0] = this.idOf(outer.shape);
     data[1] = outer.radiusMm;
     data[2] = inner.length;
@@ -146,13 +135,7 @@ export class PartShapes {
       data[o++] = h.oy - outer.oy;
       data[o++] = h.radiusMm;
     }
-    const k = this.probe;
-    k.hash = hashNumbers(data); k.data = data; k.ox = outer.ox; k.oy = outer.oy;
-    return k;
-  }
-
-  private static kept(k: ShapeKey): ShapeKey {
-    return { hash: k.hash, data: k.data.slice(), ox: k.ox, oy: k.oy };
+    return this.scratch.key(hashNumbers(data), data, outer.ox, outer.oy);
   }
 
   part(node: LoopNode, holeNodes: LoopNode[]): PlacedShape {
@@ -161,7 +144,7 @@ export class PartShapes {
     if (!rel) {
       const s = partShape(node, holeNodes);
       const outline = s.outline.map((p) => translatePath(p, -k.ox, -k.oy));
-      rel = this.parts.put(PartShapes.kept(k), { ...s, outline, box: pathsGridBox(outline) });
+      rel = this.parts.put(ScratchKey.kept(k), { ...s, outline, box: pathsGridBox(outline) });
     }
     return new PlacedShape(rel, k.ox, k.oy);
   }
@@ -171,7 +154,7 @@ export class PartShapes {
     for (const c of hole.children) kids.push(nodes[c]);
     const k = this.key(hole, kids);
     const area = this.slugs.find(k);
-    return area ?? this.slugs.put(PartShapes.kept(k), slugOf(hole, nodes));
+    return area ?? this.slugs.put(ScratchKey.kept(k), slugOf(hole, nodes));
   }
 }
 

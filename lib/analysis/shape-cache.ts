@@ -29,6 +29,41 @@ export function translatePath(path: Path, dx: number, dy: number): Path {
   return out;
 }
 
+/**
+ * A key built for one lookup after another in one reused buffer: `data(size)` is a view of its
+ * first `size` numbers (one view per size: a nest has few), `probe` the key object to fill and
+ * look up, and `kept()` the copy to put() in a cache, made only for a key that is new.
+ */
+export class ScratchKey {
+  private buf = new Float64Array(64);
+  private readonly views = new Map<number, Float64Array>();
+  readonly probe: ShapeKey = { hash: 0, data: this.buf, ox: 0, oy: 0 };
+
+  data(size: number): Float64Array {
+    if (this.buf.length < size) {
+      this.buf = new Float64Array(2 * size);
+      this.views.clear();
+    }
+    let view = this.views.get(size);
+    if (!view) {
+      view = this.buf.subarray(0, size);
+      this.views.set(size, view);
+    }
+    return view;
+  }
+
+  /** the probe, filled */
+  key(hash: number, data: Float64Array, ox: number, oy: number): ShapeKey {
+    const k = this.probe;
+    k.hash = hash; k.data = data; k.ox = ox; k.oy = oy;
+    return k;
+  }
+
+  static kept(k: ShapeKey): ShapeKey {
+    return { hash: k.hash, data: k.data.slice(), ox: k.ox, oy: k.oy };
+  }
+}
+
 function same(a: Float64Array, b: Float64Array): boolean {
   if (a.length !== b.length) return false;
   for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
