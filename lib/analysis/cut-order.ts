@@ -5,6 +5,7 @@
 import { MoveKind, type MoveList } from '@/lib/gcode/move-list';
 import type { FindingSink } from './findings';
 import { pointInRegion } from './geometry';
+import { cellOf } from './nesting';
 import type { BuiltPart } from './parts';
 
 export function checkCutOrder(moves: MoveList, parts: BuiltPart[], stockTopZ: number, toleranceMm: number, sink: FindingSink): void {
@@ -20,11 +21,10 @@ export function checkCutOrder(moves: MoveList, parts: BuiltPart[], stockTopZ: nu
   const side = Math.min(256, Math.max(1, Math.ceil(Math.sqrt(freed.length) * 2)));
   const cw = Math.max((maxX - minX) / side, 1e-6), ch = Math.max((maxY - minY) / side, 1e-6);
   const cells: number[][] = Array.from({ length: side * side }, () => []);
-  const cellOf = (v: number, lo: number, size: number) => Math.min(side - 1, Math.max(0, Math.floor((v - lo) / size)));
   freed.forEach((p, idx) => {
     const b = p.part.bbox;
-    for (let gx = cellOf(b.minX, minX, cw); gx <= cellOf(b.maxX, minX, cw); gx++)
-      for (let gy = cellOf(b.minY, minY, ch); gy <= cellOf(b.maxY, minY, ch); gy++) cells[gy * side + gx].push(idx);
+    for (let gx = cellOf(b.minX, minX, cw, side); gx <= cellOf(b.maxX, minX, cw, side); gx++)
+      for (let gy = cellOf(b.minY, minY, ch, side); gy <= cellOf(b.maxY, minY, ch, side); gy++) cells[gy * side + gx].push(idx);
   });
   const firstLine = new Int32Array(freed.length).fill(-1);
   const lastLine = new Int32Array(freed.length).fill(-1);
@@ -37,7 +37,7 @@ export function checkCutOrder(moves: MoveList, parts: BuiltPart[], stockTopZ: nu
     if (k !== FEED && k !== ARC) continue;
     const px = x[i], py = y[i];
     if (z[i] >= limitZ || px < minX || px > maxX || py < minY || py > maxY) continue;
-    const list = cells[cellOf(py, minY, ch) * side + cellOf(px, minX, cw)];
+    const list = cells[cellOf(py, minY, ch, side) * side + cellOf(px, minX, cw, side)];
     for (let j = 0; j < list.length; j++) {
       const idx = list[j];
       const p = freed[idx];

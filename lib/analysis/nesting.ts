@@ -99,7 +99,8 @@ export function nestLoops(infos: LoopInfo[], radiusOf: (tool: number) => number,
   return kept;
 }
 
-function cellOf(v: number, lo: number, size: number, side: number): number {
+/** the cell of v on a grid of `side` cells of `size` from lo, clamped to the grid */
+export function cellOf(v: number, lo: number, size: number, side: number): number {
   const k = Math.floor((v - lo) / size);
   return k < 0 ? 0 : k >= side ? side - 1 : k;
 }
