@@ -17,7 +17,7 @@ export default defineConfig({
           name: 'unit',
           environment: 'node',
           include: ['tests/unit/**/*.test.ts'],
-          setupFiles: ['tests/unit/setup-analysis.ts'],
+          setupFiles: ['tests/unit/setup-analysis.ts', 'tests/unit/setup-fast-check.ts'],
           testTimeout: 60_000,
         },
       },
