@@ -63,7 +63,7 @@ async function createShopB() {
       maxFeedXMmPerMin: 15000, maxFeedYMmPerMin: 15000, maxFeedZMmPerMin: 5000,
       rapidXMmPerMin: 20000, rapidYMmPerMin: 20000, rapidZMmPerMin: 8000,
       accelXMmPerS2: 800, accelYMmPerS2: 800, accelZMmPerS2: 400,
-      junctionDeviationMm: 0.02, lookaheadBlocks: 64, maxBlockRatePerS: 500, arcToleranceMm: 0.002,
+      cornerToleranceMm: 0.02, lookaheadBlocks: 64, maxBlocksPerS: 500, chordToleranceMm: 0.003,
       toolChangeS: 20, spindleSpinUpS: 4,
     })
     .$returningId();

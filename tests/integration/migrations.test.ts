@@ -5,11 +5,14 @@
 // the same scratch database to show it is idempotent.
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { getTableConfig, MySqlTable } from 'drizzle-orm/mysql-core';
 import { is } from 'drizzle-orm';
+import { drizzle } from 'drizzle-orm/mysql2';
+import { migrate } from 'drizzle-orm/mysql2/migrator';
 import * as schema from '@/db/schema';
 import { migrationsFolder, runMigrations } from '@/db/migrate';
 import { seed } from '@/db/seed';
@@ -138,5 +141,115 @@ describe('migrations on an empty database', () => {
     expect(await runMigrations(scratch.url)).toEqual([]);
     const [rows] = await conn.query('SELECT COUNT(*) AS n FROM `__drizzle_migrations`');
     expect(Number((rows as { n: number }[])[0].n)).toBe(journal.entries.length);
+  });
+});
+
+// 0001 renames three machine columns and the keys of stored profile snapshots; a shop's
+// data written under 0000 must come through it unchanged apart from the names. The names
+// before 0001 are read from the migration itself (its snapshot's rename record and its SQL),
+// since applied migrations are the only place they are still kept.
+const renamedColumns = (() => {
+  const snapshot = JSON.parse(fs.readFileSync(path.join(migrationsFolder, 'meta', '0001_snapshot.json'), 'utf8')) as {
+    _meta: { columns: Record<string, string> };
+  };
+  const column = (quoted: string) => quoted.split('.')[1].replace(/"/g, '');
+  return new Map(Object.entries(snapshot._meta.columns).map(([from, to]) => [column(to), column(from)]));
+})();
+const renamedKeys = (() => {
+  const sql = fs.readFileSync(path.join(migrationsFolder, '0001_machine-profile-names.sql'), 'utf8');
+  return new Map([...sql.matchAll(/'"(\w+)"\[\[:space:\]\]\*:', '"(\w+)":'/g)].map((m) => [m[2], m[1]]));
+})();
+
+/** The same object with each key named as it was before 0001. */
+function withOldKeys(value: unknown): unknown {
+  if (Array.isArray(value)) return value.map(withOldKeys);
+  if (value && typeof value === 'object')
+    return Object.fromEntries(Object.entries(value).map(([k, v]) => [renamedKeys.get(k) ?? k, withOldKeys(v)]));
+  return value;
+}
+
+describe('migration 0001 (machine profile names) on a database at 0000', () => {
+  let scratch: ScratchDatabase;
+  let conn: mysql.Connection;
+  let onlyInit: string;
+
+  beforeAll(async () => {
+    scratch = await createScratchDatabase();
+    conn = await mysql.createConnection({ uri: scratch.url });
+    // a migrations folder holding 0000 alone, so the database stops where a shop's would have
+    onlyInit = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfcast-0000-'));
+    fs.mkdirSync(path.join(onlyInit, 'meta'));
+    fs.copyFileSync(path.join(migrationsFolder, '0000_init.sql'), path.join(onlyInit, '0000_init.sql'));
+    fs.writeFileSync(
+      path.join(onlyInit, 'meta', '_journal.json'),
+      JSON.stringify({ ...journal, entries: journal.entries.filter((e) => e.tag === '0000_init') }),
+    );
+    await migrate(drizzle(conn), { migrationsFolder: onlyInit });
+  });
+
+  afterAll(async () => {
+    await conn?.end();
+    await scratch?.drop();
+    if (onlyInit) fs.rmSync(onlyInit, { recursive: true, force: true });
+  });
+
+  it('records the renames of the three columns and the ten profile keys', () => {
+    expect([...renamedColumns.keys()].sort()).toEqual(['chord_tolerance_mm', 'corner_tolerance_mm', 'max_blocks_per_s']);
+    expect([...renamedKeys.keys()].sort()).toEqual(
+      ['accelMmPerS2', 'chordToleranceMm', 'cornerToleranceMm', 'diameterMm', 'homeMm', 'lookaheadBlocks', 'maxBlocksPerS',
+        'maxFeedMmPerMin', 'rapidMmPerMin', 'travelMm'].sort(),
+    );
+    for (const [to, from] of [...renamedColumns, ...renamedKeys]) expect(from, to).not.toBe(to);
+  });
+
+  it('keeps every machine value and rewrites only the snapshot key names', async () => {
+    await conn.query("INSERT INTO shops (name, slug) VALUES ('Scratch shop', 'scratch')");
+    const [[shop]] = (await conn.query("SELECT id FROM shops WHERE slug = 'scratch'")) as unknown as [{ id: number }[]];
+    const old = (column: string) => `\`${renamedColumns.get(column)}\``;
+    await conn.query(
+      `INSERT INTO machines (shop_id, name, travel_x_mm, travel_y_mm, travel_z_mm, max_feed_x_mm_per_min, max_feed_y_mm_per_min,
+         max_feed_z_mm_per_min, rapid_x_mm_per_min, rapid_y_mm_per_min, rapid_z_mm_per_min, accel_x_mm_per_s2, accel_y_mm_per_s2,
+         accel_z_mm_per_s2, ${old('corner_tolerance_mm')}, lookahead_blocks, ${old('max_blocks_per_s')}, ${old('chord_tolerance_mm')},
+         tool_change_s, spindle_spin_up_s)
+       VALUES (?, 'Old router', 2500, 1250, 150, 15000, 15000, 5000, 20000, 20000, 8000, 800, 800, 400, 0.017, 32, 450, 0.004, 20, 4)`,
+      [shop.id],
+    );
+    const [[machine]] = (await conn.query('SELECT id FROM machines')) as unknown as [{ id: number }[]];
+    // the name spells an old key inside a string value: values must come through untouched
+    const expected = {
+      name: 'Old router "travel": "diameter" : test',
+      travelMm: { x: 2500, y: 1250, z: 150 },
+      homeMm: { x: 0, y: 0, z: 0 },
+      maxFeedMmPerMin: { x: 15000, y: 15000, z: 5000 },
+      rapidMmPerMin: { x: 20000, y: 20000, z: 8000 },
+      accelMmPerS2: { x: 800, y: 800, z: 400 },
+      cornerToleranceMm: 0.017,
+      lookaheadBlocks: 32,
+      maxBlocksPerS: 450,
+      chordToleranceMm: 0.004,
+      toolChangeSeconds: 20,
+      spindleSpinUpSeconds: 4,
+      timeFactor: 1,
+      tools: [
+        { number: 1, diameterMm: 6, flutes: 2, kind: 'upcut' },
+        { number: 2, diameterMm: 3.175, flutes: 1, kind: 'v' },
+      ],
+    };
+    // written as the code before 0001 wrote it (JSON.stringify of the old keys)
+    await conn.query('INSERT INTO machine_versions (shop_id, machine_id, version, profile) VALUES (?, ?, 1, ?)', [
+      shop.id,
+      machine.id,
+      JSON.stringify(withOldKeys(expected)),
+    ]);
+
+    expect(await runMigrations(scratch.url)).toEqual(journal.entries.filter((e) => e.tag !== '0000_init').map((e) => e.tag));
+
+    const [[row]] = (await conn.query(
+      'SELECT corner_tolerance_mm AS c, lookahead_blocks AS l, max_blocks_per_s AS b, chord_tolerance_mm AS a FROM machines',
+    )) as unknown as [{ c: number; l: number; b: number; a: number }[]];
+    expect(row).toEqual({ c: 0.017, l: 32, b: 450, a: 0.004 });
+    const [[version]] = (await conn.query('SELECT profile FROM machine_versions')) as unknown as [{ profile: unknown }[]];
+    const profile: unknown = typeof version.profile === 'string' ? JSON.parse(version.profile) : version.profile;
+    expect(profile).toEqual(expected);
   });
 });
