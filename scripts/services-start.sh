@@ -2,7 +2,8 @@
 # Starts Kerfcast's local services, each detached with a pid file in .data/pids/ and a
 # log in .data/logs/: a private MariaDB (127.0.0.1:$KERFCAST_DB_PORT, default 3307), the
 # S3 fake (4569) and the SMTP capture (2525, captured mail as JSON on 8025). Running it
-# again leaves live services alone. Databases `kerfcast` and `kerfcast_test` and the
+# again leaves live services alone. KERFCAST_DATA_DIR and KERFCAST_SERVICES: see
+# lib/common.sh. Databases `kerfcast` and `kerfcast_test` and the
 # user kerfcast/kerfcast are created here; that user may create and drop any database
 # whose name starts with "kerfcast" (the migration test uses scratch databases).
 set -euo pipefail
@@ -10,10 +11,13 @@ source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 mkdir -p "$PIDS" "$LOGS" "$RUN" "$DATA/s3" "$DATA/mail" "$DATA/tmp"
 
 # One start at a time: two terminals (or a test run beside `npm start`) must not both
-# decide a service is down and start it twice.
+# decide a service is down and start it twice. Every daemon is launched from a subshell
+# that first closes fd 9 (`exec 9>&-`), then becomes the daemon: a service, or a shell
+# waiting on it, that kept fd 9 would hold the lock for its whole life, and the next run
+# would wait for it in vain.
 if command -v flock >/dev/null 2>&1; then
   exec 9>"$DATA/services.lock"
-  flock -w 120 9 || die "another services-start.sh has held .data/services.lock for 120 s"
+  flock -w 120 9 || die "another services-start.sh has held $DATA/services.lock for 120 s"
 fi
 
 MARIADB_LOG="$LOGS/mariadb.log"
@@ -51,13 +55,17 @@ start_mariadb() {
   log "starting MariaDB on 127.0.0.1:$KERFCAST_DB_PORT"
   # --no-defaults keeps the system's /etc/mysql settings (datadir, socket) out of it;
   # --user is required by mariadbd when it runs as root and harmless otherwise.
-  setsid "$mariadbd" --no-defaults \
-    --datadir="$DATA/mariadb" --socket="$DB_SOCKET" --pid-file="$PIDS/mariadb.pid" \
-    --bind-address=127.0.0.1 --port="$KERFCAST_DB_PORT" --user="$(id -un)" \
-    --log-error="$MARIADB_LOG" --tmpdir="$DATA/tmp" --skip-name-resolve \
-    --default-time-zone=+00:00 --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
-    --innodb-buffer-pool-size=128M --max-connections=200 \
-    </dev/null >>"$MARIADB_LOG" 2>&1 &
+  # A subshell that drops the lock and then becomes mariadbd, so $! is the server's pid.
+  (
+    exec 9>&-
+    exec setsid "$mariadbd" --no-defaults \
+      --datadir="$DATA/mariadb" --socket="$DB_SOCKET" --pid-file="$PIDS/mariadb.pid" \
+      --bind-address=127.0.0.1 --port="$KERFCAST_DB_PORT" --user="$(id -un)" \
+      --log-error="$MARIADB_LOG" --tmpdir="$DATA/tmp" --skip-name-resolve \
+      --default-time-zone=+00:00 --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
+      --innodb-buffer-pool-size=128M --max-connections=200 \
+      </dev/null >>"$MARIADB_LOG" 2>&1
+  ) &
   local server=$! i
   for ((i = 0; i < 120; i++)); do
     if mariadb-admin --no-defaults --socket="$DB_SOCKET" -u"$DB_ADMIN_USER" ping >/dev/null 2>&1; then
@@ -103,7 +111,11 @@ start_node() {
     fi
   done
   log "starting $name on 127.0.0.1:$*"
-  (cd "$ROOT" && setsid node --import tsx "scripts/$script" </dev/null >>"$logfile" 2>&1 &)
+  (
+    exec 9>&-
+    cd "$ROOT" || exit 1
+    exec setsid node --import tsx "scripts/$script" </dev/null >>"$logfile" 2>&1
+  ) &
   for port in "$@"; do
     wait_port "$name" "$port" "$logfile" 30
   done
@@ -112,11 +124,22 @@ start_node() {
     pid_alive "$name" "$script" && return 0
     sleep 0.25
   done
-  die "$name answers but wrote no pid file (.data/pids/$name.pid); see $logfile"
+  die "$name answers but wrote no pid file ($PIDS/$name.pid); see $logfile"
 }
 
-start_mariadb
-prepare_databases
-start_node s3-fake s3-fake.ts "$KERFCAST_S3_PORT"
-start_node smtp-fake smtp-fake.ts "$KERFCAST_SMTP_PORT" "$KERFCAST_MAIL_HTTP_PORT"
-log "services up: MariaDB 127.0.0.1:$KERFCAST_DB_PORT, S3 http://127.0.0.1:$KERFCAST_S3_PORT, SMTP 127.0.0.1:$KERFCAST_SMTP_PORT, mail http://127.0.0.1:$KERFCAST_MAIL_HTTP_PORT/messages"
+up=()
+if wanted mariadb; then
+  start_mariadb
+  prepare_databases
+  up+=("MariaDB 127.0.0.1:$KERFCAST_DB_PORT")
+fi
+if wanted s3-fake; then
+  start_node s3-fake s3-fake.ts "$KERFCAST_S3_PORT"
+  up+=("S3 http://127.0.0.1:$KERFCAST_S3_PORT")
+fi
+if wanted smtp-fake; then
+  start_node smtp-fake smtp-fake.ts "$KERFCAST_SMTP_PORT" "$KERFCAST_MAIL_HTTP_PORT"
+  up+=("SMTP 127.0.0.1:$KERFCAST_SMTP_PORT" "mail http://127.0.0.1:$KERFCAST_MAIL_HTTP_PORT/messages")
+fi
+printf -v summary '%s, ' "${up[@]}"
+log "services up: ${summary%, }"

@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Stops the local services started by scripts/services-start.sh: exactly the processes
 # named in .data/pids/*.pid (and only if the pid still belongs to that service).
+# KERFCAST_DATA_DIR and KERFCAST_SERVICES: see lib/common.sh.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 
@@ -21,6 +22,6 @@ stop_one() {
   die "$name (pid $pid) did not exit within 60 s; it is still running"
 }
 
-stop_one smtp-fake smtp-fake.ts
-stop_one s3-fake s3-fake.ts
-stop_one mariadb mariadbd
+! wanted smtp-fake || stop_one smtp-fake smtp-fake.ts
+! wanted s3-fake || stop_one s3-fake s3-fake.ts
+! wanted mariadb || stop_one mariadb mariadbd

@@ -2,9 +2,15 @@
 # Sourced, not run. Every service writes its pid to .data/pids/<name>.pid; a pid only
 # counts as "ours" when the process is alive and its command line names the service,
 # so a stale file left after a reboot (pid reused by something else) is replaced.
+# KERFCAST_DATA_DIR moves the whole state folder (pids, logs, lock, data) elsewhere and
+# KERFCAST_SERVICES picks which services to start or stop, so a second, separate set
+# can run beside the usual one (the script test does this in a scratch folder).
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
-DATA="$ROOT/.data"
+DATA="${KERFCAST_DATA_DIR:-$ROOT/.data}"
+# Absolute, because the fakes are started from $ROOT and read it from the environment.
+[[ "$DATA" == /* ]] || DATA="$PWD/$DATA"
+export KERFCAST_DATA_DIR="$DATA"
 PIDS="$DATA/pids"
 LOGS="$DATA/logs"
 RUN="$DATA/run"
@@ -16,6 +22,18 @@ KERFCAST_MAIL_HTTP_PORT="${KERFCAST_MAIL_HTTP_PORT:-8025}"
 export KERFCAST_DB_PORT KERFCAST_S3_PORT KERFCAST_SMTP_PORT KERFCAST_MAIL_HTTP_PORT
 
 DB_SOCKET="$RUN/mariadb.sock"
+
+KERFCAST_SERVICES="${KERFCAST_SERVICES:-mariadb s3-fake smtp-fake}"
+for _service in $KERFCAST_SERVICES; do
+  case "$_service" in
+    mariadb | s3-fake | smtp-fake) ;;
+    *) printf '[kerfcast] error: KERFCAST_SERVICES names "%s"; known: mariadb s3-fake smtp-fake\n' "$_service" >&2; exit 2 ;;
+  esac
+done
+unset _service
+
+# wanted NAME: true when NAME is one of the services this run should start or stop.
+wanted() { [[ " $KERFCAST_SERVICES " == *" $1 "* ]]; }
 
 log() { printf '[kerfcast] %s\n' "$*"; }
 die() { printf '[kerfcast] error: %s\n' "$*" >&2; exit 1; }

@@ -3,7 +3,10 @@
 import fs from 'node:fs';
 import path from 'node:path';
 
-export const dataDir = path.resolve(__dirname, '..', '..', '.data');
+// KERFCAST_DATA_DIR (set by scripts/lib/common.sh) moves the state folder for a second set.
+export const dataDir = process.env.KERFCAST_DATA_DIR
+  ? path.resolve(process.env.KERFCAST_DATA_DIR)
+  : path.resolve(__dirname, '..', '..', '.data');
 
 export function writePidFile(name: string, onStop: () => Promise<void>): void {
   const file = path.join(dataDir, 'pids', `${name}.pid`);
