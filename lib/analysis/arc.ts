@@ -1,6 +1,6 @@
 // Arcs of the move list (centre, radius, signed sweep, plane) turned into chords for the XY
 // analysis. Chord count for a tolerance e: n = ⌈θ / (2·acos(1 − e/r))⌉ (sagitta of a chord,
-// h = r(1 − cos(θ/2)); see REFERENCES.md, Motion). Points advance by a fixed rotation, so a
+// h = r(1 − cos(θ/2)); see docs/references.md, Motion). Points advance by a fixed rotation, so a
 // chord costs a few multiplications, not a sine and a cosine.
 import type { ArcTable } from '@/lib/gcode/move-list';
 

@@ -1,7 +1,9 @@
 // Hold-down model. Vacuum: normal force F = ΔP·A (pressure difference times the area in
-// contact), lateral resistance μ·F, which must be at least the tool's side force (REFERENCES.md,
-// Hold-down; units NIST SP 811). Tape and glue hold any part; clamps or screws hold the sheet,
-// not what is cut free of it; "tabs" and "skin" hold only through what the program leaves.
+// contact), lateral resistance μ·F, which must be at least the tool's side force
+// (docs/references.md, Hold-down; units NIST SP 811). μ, the side force and the vacuum level
+// are shop settings whose defaults are common practice, not published values (settings.ts).
+// Tape and glue hold any part; clamps or screws hold the sheet, not what is cut free of it;
+// "tabs" and "skin" hold only through what the program leaves.
 import { fmt } from './findings';
 import type { AnalysisSettings } from './settings';
 import { MM2_PER_M2 } from './units';

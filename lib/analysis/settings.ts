@@ -3,7 +3,7 @@
 import { PA_PER_INHG } from './units';
 
 export interface AnalysisSettings {
-  /** friction coefficient between part and table or spoilboard; wood on wood ≈ 0.45 (common practice) */
+  /** friction coefficient between part and table or spoilboard; wood on wood ≈ 0.45 (engineering forums, common practice; published tables vary with the surfaces, docs/references.md) */
   frictionMu: number;
   /**
    * lateral cutting force a held part must resist, N, for any tool without its own value.
@@ -14,7 +14,7 @@ export interface AnalysisSettings {
   cuttingForceN: number;
   /** per-tool overrides of cuttingForceN, keyed by tool number */
   cuttingForceByToolN: Record<number, number>;
-  /** vacuum level used when the job gives none, kPa below atmosphere: 18 inHg, mid of the 14–22 inHg typical of router tables */
+  /** vacuum level used when the job gives none, kPa below atmosphere: 18 inHg, mid of the 14–22 inHg typical of router tables (common practice) */
   defaultVacuumKpa: number;
   /** a cut at or below bottom + this is through, mm */
   bottomToleranceMm: number;
@@ -22,9 +22,13 @@ export interface AnalysisSettings {
   skinMaxMm: number;
   /** a rise above the bottom on a final pass that comes back down within this XY length is a tab, mm */
   tabMaxLengthMm: number;
-  /** sheets this thin or thinner can lift under an up-cut tool when held only at the edges, mm (1/4 in, common practice) */
+  /** sheets this thin or thinner can lift under an up-cut tool when held only at the edges, mm (1/4 in, common practice; no published threshold) */
   thinSheetMm: number;
-  /** cutting deeper than this below the sheet bottom is a spoilboard-depth warning, mm */
+  /**
+   * cutting deeper than this below the sheet bottom is a spoilboard-depth warning, mm. 1 mm is our
+   * own default, neither sourced nor computed: through-cuts commonly go a few tenths of a
+   * millimetre into the spoilboard (common practice), so only deeper cuts are flagged.
+   */
   spoilboardAllowanceMm: number;
   /** end points closer than this in XY are the same point when loops are chained, mm */
   chainToleranceMm: number;

@@ -1,7 +1,7 @@
 // Arc geometry for G2/G3 in planes G17 (XY), G18 (ZX) and G19 (YZ), after NISTIR 6556
 // §3.5.3: the centre from I J K offsets or from a signed radius R, the signed sweep, the
 // helix length (feed is along the helix, §2.1.2.5) and chord flattening within a tolerance
-// e: n = ceil(θ / (2·acos(1 − e/r))) chords, each with sagitta ≤ e (REFERENCES.md, Motion).
+// e: n = ceil(θ / (2·acos(1 − e/r))) chords, each with sagitta ≤ e (docs/references.md, Motion).
 //
 // In-plane coordinates (a, b) follow the standard's axis order: G17 (X, Y), G18 (Z, X),
 // G19 (Y, Z); the normal axis is Z, Y, X. A positive sweep turns counter-clockwise seen from

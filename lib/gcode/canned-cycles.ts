@@ -4,9 +4,13 @@
 // of §3.5.20 (G98: to the Z before the cycle or R, whichever is higher; G99: to R).
 // Z, R, P, Q are sticky while the cycle stays in force. In G91, R is measured from the Z
 // before the cycle and Z from R, and X Y are added on each repeat.
-// G85/G89 feed out to R, then retract as the others (from memory of §3.5.16.5/.10).
-// G83/G73 return to just above the last depth before the next peck; the 0.254 mm
-// (0.010 in) gap is from memory of the NIST interpreter's constant, not a read value.
+// G85 and G89 retract at the feed rate to clear Z (§3.5.16.6, §3.5.16.10); here the feed-out
+// ends at R and the rest of the way to clear Z (G98 above R) is a rapid, a difference listed
+// in docs/references.md.
+// G83 returns to just above the last depth before the next peck (§3.5.16.4 says "backed off
+// a bit", no figure); the 0.254 mm (0.010 in) gap is from memory of the NIST interpreter's
+// constant, not a read value. G73's chip-breaking lift reuses it: neither sourced nor
+// computed (from memory; on machines the lift is a setting, common practice).
 import { Interp } from './interpreter-state';
 import { L } from './line-words';
 import { MoveFlag, MoveKind } from './move-list';

@@ -15,12 +15,12 @@ describe('vacuum force: F = ΔP × A', () => {
     expect(MM_PER_IN).toBe(25.4);
   });
 
-  it('100 × 100 mm at 20 inHg gives 677.28 N (REFERENCES.md, computed)', () => {
+  it('100 × 100 mm at 20 inHg gives 677.28 N (docs/references.md, computed)', () => {
     const kpa = (20 * PA_PER_INHG) / 1000;
     expect(vacuumNormalForceN(kpa, 100 * 100)).toBeCloseTo(677.28, 2);
   });
 
-  it('the shop rule F[lbf] ≈ inHg × in² × 0.5 is 1.8% above the exact value (REFERENCES.md, common practice)', () => {
+  it('the shop rule F[lbf] ≈ inHg × in² × 0.5 is 1.8% above the exact value (rule: common practice; 1.8% computed, docs/references.md)', () => {
     const areaIn2 = 10;
     const exactLbf = vacuumNormalForceN((20 * PA_PER_INHG) / 1000, areaIn2 * MM_PER_IN ** 2) / N_PER_LBF;
     expect((20 * areaIn2 * 0.5) / exactLbf - 1).toBeCloseTo(0.018, 3);

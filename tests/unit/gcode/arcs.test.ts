@@ -107,7 +107,7 @@ describe('helix and planes', () => {
     expect(totals(r).arc).toBeCloseTo(Math.hypot(2 * Math.PI * 10, 6), 9);
   });
 
-  it('REFERENCES check: r = 10, 90°, rise 5 → 16.4845 mm, 1.6485 s at F600 (computed)', () => {
+  it('check value (docs/references.md): r = 10, 90°, rise 5 → 16.4845 mm, 1.6485 s at F600 (computed)', () => {
     const r = run('G21 F600\nG0 X10 Y0 Z0\nG3 X0 Y10 Z5 I-10 J0\nM2');
     const len = totals(r).arc;
     expect(len).toBeCloseTo(16.4845, 4);
@@ -129,7 +129,7 @@ describe('helix and planes', () => {
   });
 });
 
-describe('flattening and chord counts (REFERENCES.md, Motion: n = ⌈θ / (2·acos(1 − e/r))⌉)', () => {
+describe('flattening and chord counts (docs/references.md, Motion: n = ⌈θ / (2·acos(1 − e/r))⌉)', () => {
   it('check values: r = 10, e = 0.01, full circle → 71; r = 50, e = 0.01, 90° → 40 (computed)', () => {
     expect(arcChordCount(10, 2 * Math.PI, 0.01)).toBe(71);
     expect(arcChordCount(50, Math.PI / 2, 0.01)).toBe(40);

@@ -1,4 +1,4 @@
-// Canned cycles against NISTIR 6556 §3.5.16 (examples with computed lengths, REFERENCES.md)
+// Canned cycles against NISTIR 6556 §3.5.16 (examples with computed lengths, docs/references.md)
 // and the retract rules of §3.5.20.
 import { describe, expect, it } from 'vitest';
 import { MoveFlag, MoveKind } from '@/lib/gcode';
@@ -74,13 +74,15 @@ describe('other cycles (NISTIR 6556 §3.5.16; G73 a dialect extension)', () => {
     const r = run('G21 F100\nG0 Z5\nG83 X0 Y0 Z-6 R1 Q2.5\nM2');
     const feeds = points(r, [MoveKind.feed]).map((p) => p[3]);
     expect(feeds).toEqual([-1.5, -4, -6]);
-    // feed length: 2.5 + 2.5 + 2 plus the two re-entries from 0.254 mm above (from memory)
+    // feed length: 2.5 + 2.5 + 2 plus the two re-entries from 0.254 mm above (§3.5.16.4 says only
+    // "backed off a bit"; the 0.254 mm is from memory)
     expect(totals(r).feed).toBeCloseTo(7 + 2 * 0.254, 9);
     const rapidsToR = points(r, [MoveKind.rapid]).filter((p) => p[3] === 1).length;
     expect(rapidsToR).toBe(3); // to R before the first peck, and after the first two
   });
 
   it('G73 breaks chips with short lifts instead of returning to R', () => {
+    // G73 is not in NISTIR 6556; its 0.254 mm lift is our own value, neither sourced nor computed (from memory)
     const r = run('G21 F100\nG0 Z5\nG73 X0 Y0 Z-6 R1 Q2.5\nM2');
     expect(points(r, [MoveKind.feed]).map((p) => p[3])).toEqual([-1.5, -4, -6]);
     expect(points(r, [MoveKind.rapid]).map((p) => p[3])).toEqual([5, 1, -1.5 + 0.254, -4 + 0.254, 5]);

@@ -25,7 +25,9 @@ describe('createUserSchema', () => {
 
   it('refuses passwords over 72 bytes, because bcrypt ignores the rest', () => {
     // The reference library shows the reason: two passwords sharing their first 72
-    // bytes match the same hash (bcrypt's 72-byte key limit, Provos & Mazières 1999, from memory).
+    // bytes match the same hash. Provos & Mazières (USENIX 1999) state a 56-byte key, but the
+    // key schedule fills Blowfish's 18 32-bit subkeys, 72 bytes, and implementations read that
+    // many (docs/references.md); this test's first assertion is what pins the 72.
     const prefix = 'k'.repeat(72);
     expect(bcrypt.compareSync(`${prefix}-one`, bcrypt.hashSync(`${prefix}-two`, 4))).toBe(true);
     expect(createUserSchema.safeParse({ ...valid, password: 'k'.repeat(72) }).success).toBe(true);
