@@ -13,13 +13,24 @@ import {
   uniqueIndex,
   index,
   text,
+  char,
+  bigint,
+  date,
 } from 'drizzle-orm/mysql-core';
+import { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, Z_ZEROS } from '@/lib/validation/enums';
 
-export const ROLES = ['admin', 'programmer', 'estimator', 'operator'] as const;
+// The enumerations have one source, lib/validation/enums.ts (client bundles read it without
+// Drizzle); they are re-exported here for the queries.
+export { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, Z_ZEROS };
 export const TOOL_KINDS = ['upcut', 'downcut', 'compression', 'straight', 'v', 'ball'] as const;
-export const HOLD_DOWNS = ['vacuum', 'tape-glue', 'clamps', 'tabs', 'skin'] as const;
-export const Z_ZEROS = ['top', 'table'] as const;
-export const JOB_STATUSES = ['draft', 'programmed', 'quoted', 'accepted', 'running', 'done', 'cancelled'] as const;
+
+/** The job settings an estimate was made with, frozen beside it. */
+export interface EstimateSettingsDoc {
+  sheet: { widthMm: number; lengthMm: number; thicknessMm: number } | null;
+  zero: (typeof Z_ZEROS)[number];
+  hold: (typeof HOLD_DOWNS)[number] | null;
+  vacuumKpa: number | null;
+}
 
 // MariaDB stores JSON as LONGTEXT with a validity check; depending on server and driver
 // version a read gives a string or an already parsed value. Accept both, so reads always
@@ -39,6 +50,8 @@ export const shops = mysqlTable('shops', {
   name: varchar('name', { length: 120 }).notNull(),
   slug: varchar('slug', { length: 60 }).notNull().unique(),
   currency: varchar('currency', { length: 3 }).notNull().default('EUR'),
+  /** how lengths are shown and typed in forms; stored values are always mm */
+  lengthUnit: mysqlEnum('length_unit', ['mm', 'inch']).notNull().default('mm'),
   createdAt: created(),
 });
 
@@ -90,6 +103,8 @@ export const machines = mysqlTable(
     timeFactor: double('time_factor').notNull().default(1),
     hourlyRateMinor: int('hourly_rate_minor').notNull().default(0),
     defaultHoldDown: mysqlEnum('default_hold_down', HOLD_DOWNS).notNull().default('vacuum'),
+    /** set instead of deleting a machine that estimates or jobs refer to */
+    archivedAt: timestamp('archived_at'),
     createdAt: created(),
     updatedAt: updated(),
   },
@@ -172,10 +187,112 @@ export const jobs = mysqlTable(
     vacuumKpa: double('vacuum_kpa'),
     quantity: int('quantity').notNull(),
     status: mysqlEnum('status', JOB_STATUSES).notNull().default('draft'),
+    /** the machine the job is planned on; estimates on upload are for this one */
+    machineId: int('machine_id').references(() => machines.id),
+    dueDate: date('due_date', { mode: 'string' }),
+    notes: text('notes'),
     createdAt: created(),
     updatedAt: updated(),
   },
-  (t) => [index('jobs_shop_idx').on(t.shopId)],
+  (t) => [index('jobs_shop_idx').on(t.shopId), index('jobs_shop_updated_idx').on(t.shopId, t.updatedAt)],
+);
+
+/** One G-code program of a job, by the file name it was uploaded under; each upload of the same name is a new version. */
+export const programs = mysqlTable(
+  'programs',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    jobId: int('job_id').notNull().references(() => jobs.id),
+    /** the uploaded file's name, for display only (object keys never contain it) */
+    name: varchar('name', { length: 200 }).notNull(),
+    latestVersion: int('latest_version').notNull().default(1),
+    createdAt: created(),
+    updatedAt: updated(),
+  },
+  (t) => [uniqueIndex('programs_job_name_unique').on(t.jobId, t.name), index('programs_shop_idx').on(t.shopId)],
+);
+
+/** The stored bytes of one version of a program: object key, SHA-256, size, line count. */
+export const programVersions = mysqlTable(
+  'program_versions',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    programId: int('program_id').notNull().references(() => programs.id),
+    version: int('version').notNull(),
+    objectKey: varchar('object_key', { length: 255 }).notNull(),
+    sha256: char('sha256', { length: 64 }).notNull(),
+    bytes: bigint('bytes', { mode: 'number' }).notNull(),
+    lines: int('lines').notNull(),
+    uploadedBy: int('uploaded_by').references(() => users.id),
+    createdAt: created(),
+  },
+  (t) => [uniqueIndex('program_versions_unique').on(t.programId, t.version), index('program_versions_sha_idx').on(t.shopId, t.sha256)],
+);
+
+/**
+ * One estimate: a program version run through the engine for one machine version and one
+ * set of job settings. `inputKey` is the SHA-256 of everything that decides the result
+ * (file hash, machine version's profile, sheet, Z zero, hold-down, vacuum, engine version),
+ * so the same inputs find the same row. The queue is these rows: pending ones are claimed
+ * with SELECT … FOR UPDATE SKIP LOCKED and held by a lease. The report (the CLI's --json)
+ * is stored as an object (reportKey), the figures lists need are columns.
+ */
+export const estimates = mysqlTable(
+  'estimates',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    programId: int('program_id').notNull().references(() => programs.id),
+    programVersionId: int('program_version_id').notNull().references(() => programVersions.id),
+    programVersion: int('program_version').notNull(),
+    machineId: int('machine_id').notNull().references(() => machines.id),
+    machineVersion: int('machine_version').notNull(),
+    engineVersion: varchar('engine_version', { length: 20 }).notNull(),
+    inputKey: char('input_key', { length: 64 }).notNull(),
+    /** the job settings the estimate was made with (frozen copy) */
+    settings: jsonDoc<EstimateSettingsDoc>('settings').notNull(),
+    status: mysqlEnum('status', ESTIMATE_STATUSES).notNull().default('pending'),
+    /** share of the work done, 0–1, while running */
+    progress: double('progress').notNull().default(0),
+    error: text('error'),
+    computeMs: int('compute_ms'),
+    totalSeconds: double('total_seconds'),
+    calibratedSeconds: double('calibrated_seconds'),
+    errorCount: int('error_count'),
+    warningCount: int('warning_count'),
+    infoCount: int('info_count'),
+    partCount: int('part_count'),
+    reportKey: varchar('report_key', { length: 255 }),
+    attempts: int('attempts').notNull().default(0),
+    leaseOwner: varchar('lease_owner', { length: 80 }),
+    leaseUntil: timestamp('lease_until', { fsp: 3 }),
+    requestedBy: int('requested_by').references(() => users.id),
+    createdAt: created(),
+    updatedAt: updated(),
+    finishedAt: timestamp('finished_at'),
+  },
+  (t) => [
+    uniqueIndex('estimates_input_unique').on(t.shopId, t.inputKey),
+    index('estimates_queue_idx').on(t.status, t.id),
+    index('estimates_program_idx').on(t.programId, t.programVersion),
+  ],
+);
+
+/** What happened to a job, for its history: created, edited, status changed, program uploaded, estimate done. */
+export const jobEvents = mysqlTable(
+  'job_events',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    jobId: int('job_id').notNull().references(() => jobs.id),
+    userId: int('user_id').references(() => users.id),
+    kind: varchar('kind', { length: 40 }).notNull(),
+    detail: varchar('detail', { length: 500 }).notNull().default(''),
+    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+  },
+  (t) => [index('job_events_job_idx').on(t.jobId, t.id)],
 );
 
 export type Shop = typeof shops.$inferSelect;
@@ -185,4 +302,8 @@ export type Tool = typeof tools.$inferSelect;
 export type Material = typeof materials.$inferSelect;
 export type Customer = typeof customers.$inferSelect;
 export type Job = typeof jobs.$inferSelect;
+export type Program = typeof programs.$inferSelect;
+export type ProgramVersion = typeof programVersions.$inferSelect;
+export type EstimateRow = typeof estimates.$inferSelect;
+export type JobEvent = typeof jobEvents.$inferSelect;
 export type Role = (typeof ROLES)[number];

@@ -6,16 +6,25 @@
 // | role       | pages                               | actions                                            |
 // |------------|-------------------------------------|----------------------------------------------------|
 // | admin      | jobs, machines, customers, users    | everything                                         |
-// | programmer | jobs, machines, customers           | jobs read/write, machines read/write, customers rw |
-// | estimator  | jobs, machines, customers           | jobs read/write, machines read, customers rw       |
-// | operator   | jobs, machines                      | jobs read, machines read                           |
+// | programmer | jobs, machines, customers           | jobs rw, programs rw (upload), estimates rw,       |
+// |            |                                     | machines rw, customers rw                          |
+// | estimator  | jobs, machines, customers           | jobs read, programs read, estimates rw (request),  |
+// |            |                                     | machines read, customers rw                        |
+// | operator   | jobs, machines                      | jobs read, programs read, estimates read,          |
+// |            |                                     | machines read                                      |
 import type { Role } from '@/lib/validation/enums';
 
 export type { Role };
 
 export const ACTIONS = {
   'jobs:read': ['admin', 'programmer', 'estimator', 'operator'],
-  'jobs:write': ['admin', 'programmer', 'estimator'],
+  // programmers and admins create jobs and upload (PRODUCT.md: the job is the programmer's)
+  'jobs:write': ['admin', 'programmer'],
+  'programs:read': ['admin', 'programmer', 'estimator', 'operator'],
+  'programs:write': ['admin', 'programmer'],
+  'estimates:read': ['admin', 'programmer', 'estimator', 'operator'],
+  // estimators request estimates for another machine or after a profile change
+  'estimates:write': ['admin', 'programmer', 'estimator'],
   'machines:read': ['admin', 'programmer', 'estimator', 'operator'],
   'machines:write': ['admin', 'programmer'],
   'customers:read': ['admin', 'programmer', 'estimator'],

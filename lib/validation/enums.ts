@@ -1,20 +1,31 @@
 // The enumerations the forms offer, kept here so that client bundles do not pull in
-// Drizzle. tests/unit/validation/enums.test.ts proves they equal db/schema.ts's.
+// Drizzle. db/schema.ts builds its ENUM columns from these lists.
 export const ROLES = ['admin', 'programmer', 'estimator', 'operator'] as const;
 export const HOLD_DOWNS = ['vacuum', 'tape-glue', 'clamps', 'tabs', 'skin'] as const;
 export const Z_ZEROS = ['top', 'table'] as const;
-export const JOB_STATUSES = ['draft', 'programmed', 'quoted', 'accepted', 'running', 'done', 'cancelled'] as const;
+export const JOB_STATUSES = ['draft', 'programmed', 'quoted', 'accepted', 'scheduled', 'running', 'done', 'cancelled'] as const;
+/** An estimate's life: queued, being computed by a worker thread, stored, or failed with its reason. */
+export const ESTIMATE_STATUSES = ['pending', 'running', 'done', 'failed'] as const;
 
 export type Role = (typeof ROLES)[number];
 export type HoldDown = (typeof HOLD_DOWNS)[number];
 export type ZZero = (typeof Z_ZEROS)[number];
 export type JobStatus = (typeof JOB_STATUSES)[number];
+export type EstimateStatus = (typeof ESTIMATE_STATUSES)[number];
 
 export const ROLE_LABELS: Record<Role, string> = {
   admin: 'Admin',
   programmer: 'Programmer',
   estimator: 'Estimator',
   operator: 'Operator',
+};
+
+/** A role as it reads inside a sentence ("Priya is now a programmer"). */
+export const ROLE_IN_SENTENCE: Record<Role, string> = {
+  admin: 'an admin',
+  programmer: 'a programmer',
+  estimator: 'an estimator',
+  operator: 'an operator',
 };
 
 export const HOLD_DOWN_LABELS: Record<HoldDown, string> = {
@@ -30,6 +41,7 @@ export const JOB_STATUS_LABELS: Record<JobStatus, string> = {
   programmed: 'Programmed',
   quoted: 'Quoted',
   accepted: 'Accepted',
+  scheduled: 'Scheduled',
   running: 'Running',
   done: 'Done',
   cancelled: 'Cancelled',
