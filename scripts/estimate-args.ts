@@ -7,6 +7,7 @@ export type HoldMethod = (typeof HOLD_METHODS)[number];
 export interface EstimateArgs {
   file: string;
   machine: string;
+  /** along X, along Y, thickness; null when --sheet was not given */
   sheet: { widthMm: number; lengthMm: number; thicknessMm: number } | null;
   zero: 'top' | 'table';
   hold: HoldMethod | null;
@@ -15,7 +16,8 @@ export interface EstimateArgs {
 }
 
 export const USAGE =
-  'usage: npm run -s estimate -- FILE --machine PROFILE.json [--sheet WxLxT] [--zero top|table] [--hold vacuum|tape-glue|clamps|tabs|skin] [--vacuum-kpa N] [--json]';
+  'usage: npm run -s estimate -- FILE --machine PROFILE.json [--sheet XxYxT] [--zero top|table] [--hold vacuum|tape-glue|clamps|tabs|skin] [--vacuum-kpa N] [--json]' +
+  " (--sheet: the sheet in mm, its size along the machine's X, its size along Y, and its thickness, e.g. 2440x1220x18)";
 
 export type ArgsParse = { ok: true; args: EstimateArgs } | { ok: false; message: string };
 
@@ -43,9 +45,9 @@ export function parseEstimateArgs(argv: string[]): ArgsParse {
 
   let sheet: EstimateArgs['sheet'] = null;
   if (values.sheet !== undefined) {
-    const parts = values.sheet.toLowerCase().split('x').map((s) => Number(s.trim()));
+    const parts = values.sheet.toLowerCase().split(/[x×]/).map((s) => (s.trim() === '' ? NaN : Number(s.trim())));
     if (parts.length !== 3 || parts.some((n) => !Number.isFinite(n) || n <= 0)) {
-      return { ok: false, message: `--sheet must be WxLxT in mm with three positive numbers, e.g. 2440x1220x18 (got "${values.sheet}")` };
+      return { ok: false, message: `--sheet must be X×Y×T in mm (size along X, size along Y, thickness), three positive numbers such as 2440x1220x18 (got "${values.sheet}")` };
     }
     sheet = { widthMm: parts[0], lengthMm: parts[1], thicknessMm: parts[2] };
   }

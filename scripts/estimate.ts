@@ -1,11 +1,12 @@
 // `npm run -s estimate -- FILE --machine PROFILE.json [...]`: run-time estimate of a G-code
 // program on a machine profile, as a short table or (--json) one JSON object. Exit 0 when an
 // estimate was made, whatever its findings; 2 with one line on stderr for a bad argument, an
-// unreadable file or a bad profile.
+// unreadable, empty or binary program file or a bad profile.
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { loadAnalysis } from '@/lib/analysis';
+import { checkProgramBytes } from '@/lib/gcode/program-text';
 import { runEstimate } from '@/lib/estimate/run-estimate';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
 import { parseEstimateArgs } from './estimate-args';
@@ -43,9 +44,12 @@ async function main(): Promise<void> {
   if (!profile.ok) fail(`bad machine profile ${args.machine}: ${profile.message}`);
 
   const bytes = readOrFail(args.file, 'program');
+  // an empty, blank or binary file is refused like an unreadable one (the upload's rule too)
+  const program = checkProgramBytes(bytes);
+  if (!program.ok) fail(`cannot use program ${args.file}: ${program.message}`);
   const sha256 = createHash('sha256').update(bytes).digest('hex');
   await analysisReady;
-  const { report } = runEstimate(bytes.toString('utf8'), profile.profile, args, { name: path.basename(args.file), sha256 });
+  const { report } = runEstimate(program.text, profile.profile, args, { name: path.basename(args.file), sha256 });
   process.stdout.write(args.json ? `${JSON.stringify(report)}\n` : `${formatEstimateTable(report, profile.profile.name, profile.profile.timeFactor)}\n`);
 }
 

@@ -274,9 +274,9 @@ export class CutGraph {
     const deg = new Int32Array(V);
     for (let e = 0; e < E; e++) { deg[this.eu[e]]++; deg[this.ev[e]]++; }
     // no vertex where three edges meet: no pass overlaps another, and the graph stays as it is
-    let junctions = false;
-    for (let v = 0; v < V && !junctions; v++) if (deg[v] >= 3) junctions = true;
-    if (!junctions) return;
+    let branchPoints = false;
+    for (let v = 0; v < V && !branchPoints; v++) if (deg[v] >= 3) branchPoints = true;
+    if (!branchPoints) return;
     const start = new Int32Array(V + 1);
     for (let v = 0; v < V; v++) start[v + 1] = start[v] + deg[v];
     const fill = start.slice(0, V);

@@ -3,7 +3,7 @@
 // `cut-order` error naming both lines. A second pass, from the first freeing move on, with the
 // freed parts in a coarse grid so that each move tests only the parts under it.
 import { MoveKind, type MoveList } from '@/lib/gcode/move-list';
-import type { FindingSink } from './findings';
+import { THROWN_PIECE, type FindingSink } from './findings';
 import { pointInRegion } from './geometry';
 import { cellOf } from './nesting';
 import type { BuiltPart } from './parts';
@@ -52,9 +52,9 @@ export function checkCutOrder(moves: MoveList, parts: BuiltPart[], stockTopZ: nu
   freed.forEach((p, idx) => {
     if (firstLine[idx] < 0) return;
     const at = p.part.freedAtLine;
-    const span = lastLine[idx] > firstLine[idx] ? `lines ${firstLine[idx]}–${lastLine[idx]} cut` : `line ${firstLine[idx]} cuts`;
+    const span = lastLine[idx] > firstLine[idx] ? `From this line to line ${lastLine[idx]} the program cuts` : 'This line cuts';
     sink.add('cut-order', 'error', firstLine[idx],
-      `Part ${p.part.id}: ${span} inside the part after its outside profile went through at line ${at}. Once the outside is through the part can shift; cut inside features (holes, pockets) before the outside profile.`,
+      `${span} inside part ${p.part.id} after its outside profile went through at line ${at}. Once the outside is through the part can shift or be thrown. ${THROWN_PIECE} Cut inside features (holes, pockets) before the outside profile.`,
       p.part.id);
   });
 }

@@ -81,7 +81,7 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
   const posAtU = new Int32Array(E);
   const posAtV = new Int32Array(E);
   const vx = g.vx, vy = g.vy;
-  // scratch for one vertex's live edges and their angles, sorted by insertion (junctions meet a
+  // scratch for one vertex's live edges and their angles, sorted by insertion (branch points meet a
   // handful of edges); no closure per vertex, no array growth
   let tmp = new Int32Array(16);
   let ang = new Float64Array(16);
@@ -91,7 +91,7 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
     if (hi - lo > tmp.length) { tmp = new Int32Array(2 * (hi - lo)); ang = new Float64Array(2 * (hi - lo)); }
     let m = 0;
     for (let k = lo; k < hi; k++) if (alive[adj[k]]) tmp[m++] = adj[k];
-    // with two edges either order gives the same walk: only junctions need the angles
+    // with two edges either order gives the same walk: only branch points need the angles
     if (m > 2) {
       for (let i = 0; i < m; i++) {
         const e = tmp[i];
@@ -109,7 +109,7 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
       for (let k = lo; k < hi; k++) if (!alive[adj[k]]) tmp[d++] = adj[k];
       for (let i = 0; i < d; i++) order[lo + i] = tmp[i];
     }
-    // the walk reads an edge's position only at a junction: two edges, it takes the other one
+    // the walk reads an edge's position only at a branch point: two edges, it takes the other one
     if (m > 2) {
       for (let i = 0; i < m; i++) {
         const e = tmp[i];

@@ -1,5 +1,7 @@
 // Collects findings, keeping the first few of each kind so that a program with the same fault
 // on ten thousand lines gives a readable list; the rest are counted for the summary.
+// A finding's message is a full sentence (or several) that leaves its own line number to the
+// finding's `line`, which every listing shows beside it; it names other lines where they matter.
 import type { Finding, FindingKind, FindingSeverity } from './types';
 
 export class FindingSink {
@@ -47,6 +49,9 @@ export class FindingSink {
     return this.findings.slice().sort((a, b) => a.line - b.line || rank[a.severity] - rank[b.severity]);
   }
 }
+
+/** said wherever a finding is about a piece that can come loose: a freed part, a slug, a rapid through stock */
+export const THROWN_PIECE = "A thrown piece can hurt someone nearby: stand clear and keep the guards closed, as the shop's rules require.";
 
 export function fmt(n: number, digits = 1): string {
   return (Math.round(n * 10 ** digits) / 10 ** digits).toFixed(digits);

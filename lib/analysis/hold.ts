@@ -29,15 +29,15 @@ export interface HoldVerdict {
   reason: string;
 }
 
-/** whether the hold-down holds a freed piece, without the verdict's wording */
-export function freedPieceHeld(method: HoldDownMethod, areaMm2: number, tool: number, vacuumKpa: number, s: AnalysisSettings): boolean {
+/** whether the hold-down holds a freed piece, without the verdict's wording (null: none named) */
+export function freedPieceHeld(method: HoldDownMethod | null, areaMm2: number, tool: number, vacuumKpa: number, s: AnalysisSettings): boolean {
   if (method === 'tape-glue') return true;
   if (method === 'vacuum') return vacuumLateralHoldN(vacuumKpa, areaMm2, s.frictionMu) >= cuttingForceFor(tool, s);
   return false;
 }
 
-/** the hold of a piece freed by the program (no tabs or skin left) */
-export function freedPieceHold(method: HoldDownMethod, areaMm2: number, tool: number, vacuumKpa: number, s: AnalysisSettings): HoldVerdict {
+/** the hold of a piece freed by the program (no tabs or skin left); null: no hold-down was named */
+export function freedPieceHold(method: HoldDownMethod | null, areaMm2: number, tool: number, vacuumKpa: number, s: AnalysisSettings): HoldVerdict {
   switch (method) {
     case 'tape-glue':
       return { held: true, holdBy: 'tape-glue', reason: '' };
@@ -55,6 +55,8 @@ export function freedPieceHold(method: HoldDownMethod, areaMm2: number, tool: nu
       return { held: false, holdBy: 'none', reason: 'clamps or screws hold the sheet, not a part cut free of it, and the program leaves no tabs or skin on it' };
     case 'tabs':
       return { held: false, holdBy: 'none', reason: 'the hold-down is tabs only, and the program leaves no tabs on this profile' };
+    case null:
+      return { held: false, holdBy: 'none', reason: 'no hold-down was given, so only tabs or onion skin left by the program count, and it leaves none on this profile' };
     case 'skin':
       return { held: false, holdBy: 'none', reason: 'the hold-down is an onion skin, and the program cuts this profile through without leaving one' };
   }

@@ -10,7 +10,7 @@ import type { MoveList } from '@/lib/gcode/move-list';
 import { findCrossings } from './crossings';
 import { checkCutOrder } from './cut-order';
 import { extractLoops, prune, type GraphLoop } from './faces';
-import { FindingSink, fmt } from './findings';
+import { FindingSink, fmt, THROWN_PIECE } from './findings';
 import { loadClipper, loadedClipper } from './geometry';
 import { LoopShapes } from './loop-shapes';
 import { describeLoop } from './loops';
@@ -41,8 +41,8 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
   const sink = new FindingSink(s.maxFindingsPerKind);
   const sheet = validSheet(input.sheet, sink);
   const tools = new Map<number, ToolSpec>();
-  for (const t of input.tools ?? []) if (Number.isFinite(t.diameter) && t.diameter >= 0) tools.set(t.number, t);
-  const toolDiameter = (t: number) => tools.get(t)?.diameter ?? 0;
+  for (const t of input.tools ?? []) if (Number.isFinite(t.diameterMm) && t.diameterMm >= 0) tools.set(t.number, t);
+  const toolDiameter = (t: number) => tools.get(t)?.diameterMm ?? 0;
   const tol = s.bottomToleranceMm;
   const topZ = sheet ? (input.zZero === 'table' ? sheet.thicknessMm : 0) : input.zZero === 'top' ? 0 : null;
   const bottomZ = sheet ? (input.zZero === 'table' ? 0 : -sheet.thicknessMm) : null;
@@ -57,15 +57,15 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
     bandTopZ: bottomZ !== null ? bottomZ + s.skinMaxMm : null,
     stockTopZ: topZ,
     chainToleranceMm: s.chainToleranceMm,
-    arcToleranceMm: s.arcToleranceMm,
+    chordToleranceMm: s.chordToleranceMm,
     tabMaxLengthMm: s.tabMaxLengthMm,
   }, checks);
 
   for (const [t, line] of scan.toolFirstLine) {
     if (tools.has(t)) continue;
     sink.add('unknown-tool', 'warning', line, t === 0
-      ? `Cutting moves from line ${line} run with no tool selected (T0): the checks take its diameter as 0 mm, so kerf, plunge and hold results for those cuts are approximate.`
-      : `Tool T${t} (cutting from line ${line}) is not in the tool library: the checks take its diameter as 0 mm, so kerf, plunge and hold results for it are approximate. Add it to the library.`);
+      ? 'Cutting moves from this line on run with no tool selected (T0): the checks take its diameter as 0 mm, so kerf, plunge and hold results for those cuts are approximate.'
+      : `Tool T${t}, cutting from this line on, is not in the tool library: the checks take its diameter as 0 mm, so kerf, plunge and hold results for it are approximate. Add it to the library.`);
   }
 
   let parts: AnalysisPart[] = [];
@@ -79,12 +79,12 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
     for (const c of crossings) {
       const la = moves.line[g.eFirstNear[c.edgeA]], lb = moves.line[g.eFirstNear[c.edgeB]];
       sink.add('crossing-cuts', 'warning', Math.max(la, lb),
-        `Through cuts cross at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)} (lines ${Math.min(la, lb)} and ${Math.max(la, lb)}): two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
+        `${la === lb ? 'This through cut crosses itself' : `This through cut crosses the one at line ${Math.min(la, lb)}`} at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)}: two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
     }
     const shapes = new LoopShapes();
     const loops = extractLoops(g, pruned)
       .filter((l) => !touchesCrossing(l, crossed))
-      .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.arcToleranceMm, shapes));
+      .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.chordToleranceMm, shapes));
     const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
     const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
     holes = built.holes;
@@ -127,12 +127,14 @@ function touchesCrossing(loop: GraphLoop, crossed: Uint8Array): boolean {
   return false;
 }
 
+const SHEET_FIELD_WORDS = { widthMm: 'width', lengthMm: 'length', thicknessMm: 'thickness' } as const;
+
 function validSheet(sheet: SheetSpec | null, sink: FindingSink): SheetSpec | null {
   if (!sheet) return null;
   for (const field of ['widthMm', 'lengthMm', 'thicknessMm'] as const) {
     const v = sheet[field];
     if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) {
-      sink.add('checks-skipped', 'warning', 0, `sheet.${field} must be a positive number of millimetres, got ${String(v)}; the through-cut and sheet checks were not made.`);
+      sink.add('checks-skipped', 'warning', 0, `The sheet's ${SHEET_FIELD_WORDS[field]} (sheet.${field}) must be a positive number of millimetres, not ${String(v)}, so the through-cut and sheet checks were not made.`);
       return null;
     }
   }
@@ -141,11 +143,12 @@ function validSheet(sheet: SheetSpec | null, sink: FindingSink): SheetSpec | nul
 
 /** up-cut spiral tools pull a thin sheet held only at its edges up off the table */
 function sheetLift(sheet: SheetSpec, input: AnalysisInput, tools: Map<number, ToolSpec>, firstThrough: Map<number, number>, line: Uint32Array, thinSheetMm: number, sink: FindingSink): void {
-  if (sheet.thicknessMm > thinSheetMm || (input.holdDown !== 'clamps' && input.holdDown !== 'tabs')) return;
+  if (sheet.thicknessMm > thinSheetMm || (input.holdDown !== 'clamps' && input.holdDown !== 'tabs' && input.holdDown !== null)) return;
   for (const [t, move] of firstThrough) {
     const kind = (tools.get(t)?.kind ?? '').toLowerCase().replace(/[^a-z]/g, '');
     if (kind !== 'upcut' && kind !== 'upspiral') continue;
+    const held = input.holdDown === 'clamps' ? 'clamps at the sheet edge' : input.holdDown === 'tabs' ? 'tabs only' : 'only the tabs or skin the program leaves (no hold-down was given)';
     sink.add('sheet-lift', 'warning', line[move],
-      `Up-cut tool T${t} cuts through the ${fmt(sheet.thicknessMm, 1)} mm sheet from line ${line[move]} with ${input.holdDown === 'clamps' ? 'clamps at the sheet edge' : 'tabs only'} to hold it: an up-cut bit pulls a thin sheet up in the middle, so tabs can fail and parts kick loose. Use a down-cut or compression tool, vacuum, or tape and glue.`);
+      `Up-cut tool T${t} cuts through the ${fmt(sheet.thicknessMm, 1)} mm sheet from this line on with ${held} to hold it: an up-cut bit pulls a thin sheet up in the middle, so tabs can fail and parts kick loose. ${THROWN_PIECE} Use a down-cut or compression tool, vacuum, or tape and glue.`);
   }
 }

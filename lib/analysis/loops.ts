@@ -25,9 +25,9 @@ export interface LoopInfo {
 /** sagitta of the chords the area work draws arcs with, mm (areas stay exact, see loop-shapes) */
 export const AREA_CHORD_MM = 0.05;
 
-export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, throughZ: number, line: Uint32Array, arcToleranceMm: number, shapes = new LoopShapes()): LoopInfo {
+export function describeLoop(g: CutGraph, loop: GraphLoop, bottomZ: number, throughZ: number, line: Uint32Array, chordToleranceMm: number, shapes = new LoopShapes()): LoopInfo {
   const { edges, start: o, length: n } = loop;
-  const { shape, ox, oy } = shapes.place(g, loop, Math.max(arcToleranceMm, AREA_CHORD_MM));
+  const { shape, ox, oy } = shapes.place(g, loop, Math.max(chordToleranceMm, AREA_CHORD_MM));
   const eFirstNear = g.eFirstNear, eFirstThrough = g.eFirstThrough, eZMin = g.eZMin;
   let completed = -1, first = 0x7fffffff, freed = -1, allThrough = true, anyThrough = false, freeEdge = -1;
   let skin = Infinity;

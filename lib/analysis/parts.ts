@@ -5,7 +5,7 @@
 // Loops that repeat (a nest of copies) reuse the Clipper results of the first copy
 // (shape-cache); a slug's exact area is worked out only when its verdict or its finding's
 // text needs it, from the bounds A − r·P ≤ slug ≤ A of the hole's interior A and perimeter P.
-import { FindingSink, fmt } from './findings';
+import { FindingSink, fmt, THROWN_PIECE } from './findings';
 import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, SCALE, type Paths } from './geometry';
 import { freedPieceHeld, freedPieceHold } from './hold';
 import type { LoopNode } from './nesting';
@@ -28,7 +28,8 @@ export interface BuiltPart {
 }
 
 export interface PartContext {
-  method: HoldDownMethod;
+  /** null: no hold-down was named */
+  method: HoldDownMethod | null;
   vacuumKpa: number;
   settings: AnalysisSettings;
   line: Uint32Array;
@@ -256,7 +257,7 @@ function byFreeing(a: Built, b: Built): number {
 function unheldPart(sink: FindingSink, part: AnalysisPart, reason: string): void {
   const b = part.bbox;
   sink.add('unheld-part', 'error', part.freedAtLine ?? 0,
-    `Part ${part.id} (${fmt(b.maxX - b.minX)} × ${fmt(b.maxY - b.minY)} mm, ${fmt(part.areaMm2, 0)} mm²) is cut free at line ${part.freedAtLine} and nothing holds it: ${reason}. Leave tabs or an onion skin, or hold it with tape and glue.`,
+    `Part ${part.id} (${fmt(b.maxX - b.minX)} × ${fmt(b.maxY - b.minY)} mm, ${fmt(part.areaMm2, 0)} mm²) is cut free by this move and nothing holds it: ${reason}. The cutter can throw a loose part. ${THROWN_PIECE} Leave tabs or an onion skin, or hold it with tape and glue.`,
     part.id);
 }
 
@@ -266,7 +267,7 @@ function looseSlug(sink: FindingSink, s: LooseSlug, shapes: PartShapes, nodes: L
     const h = s.hole;
     const slug = Number.isNaN(s.areaMm2) ? (s.areaMm2 = shapes.slug(h, nodes)) : s.areaMm2;
     const v = freedPieceHold(ctx.method, slug, h.info.tool, ctx.vacuumKpa, ctx.settings);
-    return `The scrap inside a hole of part ${s.part.id} (${fmt(h.bbox.maxX - h.bbox.minX)} × ${fmt(h.bbox.maxY - h.bbox.minY)} mm tool path, slug ${fmt(slug, 0)} mm²) is cut free at line ${s.line} and nothing holds it: ${v.reason}. A loose slug can be thrown by the cutter; leave a tab or skin on it, or clear it as a pocket.`;
+    return `The scrap inside a hole of part ${s.part.id} (${fmt(h.bbox.maxX - h.bbox.minX)} × ${fmt(h.bbox.maxY - h.bbox.minY)} mm tool path, slug ${fmt(slug, 0)} mm²) is cut free by this move and nothing holds it: ${v.reason}. The cutter can throw a loose slug. ${THROWN_PIECE} Leave a tab or skin on it, or clear it as a pocket.`;
   }, s.part.id);
 }
 

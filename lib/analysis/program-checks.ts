@@ -3,7 +3,7 @@
 // spoilboard, feeds above the machine's limit, straight plunges, and the plunge points.
 // A fault repeated on consecutive moves is reported once, at its first line.
 import type { FindingSink } from './findings';
-import { fmt } from './findings';
+import { fmt, THROWN_PIECE } from './findings';
 import { PlungePoints } from './plunge-points';
 import type { MachineLimits, SheetSpec } from './types';
 
@@ -62,10 +62,10 @@ export class ProgramChecks {
     if (c.bottomZ !== null) k[K_SPOIL] = c.bottomZ - c.spoilboardAllowanceMm - tol;
     const mach = c.machine;
     if (mach) {
-      k[K_FEED_X] = mach.maxFeed.x; k[K_FEED_Y] = mach.maxFeed.y; k[K_FEED_Z] = mach.maxFeed.z;
-      k[K_FEED_LOW] = Math.min(mach.maxFeed.x, mach.maxFeed.y, mach.maxFeed.z);
-      k[K_ARC_FEED] = Math.min(mach.maxFeed.x, mach.maxFeed.y);
-      k[K_SPAN_X] = mach.travel.x + tol; k[K_SPAN_Y] = mach.travel.y + tol; k[K_SPAN_Z] = mach.travel.z + tol;
+      k[K_FEED_X] = mach.maxFeedMmPerMin.x; k[K_FEED_Y] = mach.maxFeedMmPerMin.y; k[K_FEED_Z] = mach.maxFeedMmPerMin.z;
+      k[K_FEED_LOW] = Math.min(mach.maxFeedMmPerMin.x, mach.maxFeedMmPerMin.y, mach.maxFeedMmPerMin.z);
+      k[K_ARC_FEED] = Math.min(mach.maxFeedMmPerMin.x, mach.maxFeedMmPerMin.y);
+      k[K_SPAN_X] = mach.travelMm.x + tol; k[K_SPAN_Y] = mach.travelMm.y + tol; k[K_SPAN_Z] = mach.travelMm.z + tol;
     }
   }
 
@@ -193,8 +193,8 @@ export class ProgramChecks {
     if (mach) {
       const off = mach.workOffset;
       if (off) {
-        const out = bx0 + off.x < -tol || bx1 + off.x > mach.travel.x + tol || by0 + off.y < -tol || by1 + off.y > mach.travel.y + tol ||
-          zLo + off.z < -mach.travel.z - tol || Math.max(z0, z1) + off.z > tol;
+        const out = bx0 + off.x < -tol || bx1 + off.x > mach.travelMm.x + tol || by0 + off.y < -tol || by1 + off.y > mach.travelMm.y + tol ||
+          zLo + off.z < -mach.travelMm.z - tol || Math.max(z0, z1) + off.z > tol;
         if (out && !this.travelRun) {
           outsideTravel(this.sink, line, mach);
         }
@@ -217,8 +217,8 @@ export class ProgramChecks {
       if (kind !== 0 && feedMmPerMin > 0) {
         if (feedMmPerMin <= k[K_FEED_LOW] || (feedMmPerMin <= k[K_ARC_FEED] && (kind === 2 || Math.abs(z1 - z0) <= EPS))) {
           // at most the lowest axis limit, or the lower XY limit on an arc or a level move: no
-          // direction of the move can limit it (each axis' limit along the move, maxFeed·len/|d|
-          // with |d| ≤ len, is at least that axis' maxFeed; a level move's Z part counts as none)
+          // direction of the move can limit it (each axis' limit along the move, maxFeedMmPerMin·len/|d|
+          // with |d| ≤ len, is at least that axis' own; a level move's Z part counts as none)
           st[S_FEED_RUN] = -1;
         } else {
           this.feedLimit(line, kind, feedMmPerMin);
@@ -256,7 +256,7 @@ export class ProgramChecks {
     if (mach && !mach.workOffset && this.travelLine > 0) {
       const spanX = st[S_MAX_X] - st[S_MIN_X], spanY = st[S_MAX_Y] - st[S_MIN_Y], spanZ = st[S_MAX_Z] - st[S_MIN_Z];
       this.sink.add('outside-travel', 'error', this.travelLine,
-        () => `The program spans ${fmt(spanX, 0)} × ${fmt(spanY, 0)} × ${fmt(spanZ, 0)} mm, more than the machine's travel of ${fmt(mach.travel.x, 0)} × ${fmt(mach.travel.y, 0)} × ${fmt(mach.travel.z, 0)} mm (first exceeded at line ${this.travelLine}): it cannot run wherever the work offset is set.`);
+        () => `The program spans ${fmt(spanX, 0)} × ${fmt(spanY, 0)} × ${fmt(spanZ, 0)} mm, more than the machine's travel of ${fmt(mach.travelMm.x, 0)} × ${fmt(mach.travelMm.y, 0)} × ${fmt(mach.travelMm.z, 0)} mm (this move is the first to exceed it), so it cannot run wherever the work offset is set: the machine may stop on a limit or hit its frame.`);
     }
   }
 }
@@ -266,37 +266,37 @@ export class ProgramChecks {
 // text only when the finding will be listed; a repeated fault past the kind's limit is only counted.
 
 function rapidInStock(sink: FindingSink, line: number, zLo: number, top: number): void {
-  if (sink.listing('rapid-in-stock')) sink.add('rapid-in-stock', 'error', line, `Rapid at line ${line} moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. Retract above the stock top before a rapid, or make the move a feed.`);
+  if (sink.listing('rapid-in-stock')) sink.add('rapid-in-stock', 'error', line, `A rapid moves in XY at Z ${fmt(zLo, 3)} mm, ${fmt(top - zLo, 2)} mm below the stock top, over the sheet: a rapid through material can break the tool or throw the part. ${THROWN_PIECE} Retract above the stock top before a rapid, or make the move a feed.`);
   else sink.count('rapid-in-stock');
 }
 
 function spindleOff(sink: FindingSink, line: number, zLo: number, top: number): void {
-  if (sink.listing('spindle-off')) sink.add('spindle-off', 'error', line, `Feed move at line ${line} cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: start the spindle (M3/M4) before the tool enters the material.`);
+  if (sink.listing('spindle-off')) sink.add('spindle-off', 'error', line, `A feed move cuts ${fmt(top - zLo, 2)} mm into the stock with the spindle stopped: a tool that is not turning can break, and the part or the broken tool can be thrown. ${THROWN_PIECE} Start the spindle (M3/M4) before the tool enters the material.`);
   else sink.count('spindle-off');
 }
 
 function straightPlunge(sink: FindingSink, line: number, depthMm: number, d: number, tool: number): void {
-  if (sink.listing('straight-plunge')) sink.add('straight-plunge', 'info', line, `Straight plunge at line ${line}: ${fmt(depthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
+  if (sink.listing('straight-plunge')) sink.add('straight-plunge', 'info', line, `A straight plunge goes ${fmt(depthMm, 2)} mm into the stock with no ramp, more than the ${fmt(d, 2)} mm diameter of tool T${tool}. A ramp or helix entry spares the tool's end and lets chips out.`);
   else sink.count('straight-plunge');
 }
 
 function outsideSheet(sink: FindingSink, line: number, x: number, y: number, sheet: SheetSpec): void {
-  if (sink.listing('outside-sheet')) sink.add('outside-sheet', 'warning', line, `Feed move at line ${line} reaches X ${fmt(x, 2)}, Y ${fmt(y, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
+  if (sink.listing('outside-sheet')) sink.add('outside-sheet', 'warning', line, `A feed move reaches X ${fmt(x, 2)}, Y ${fmt(y, 2)} mm below the stock top, beyond the ${fmt(sheet.widthMm, 0)} × ${fmt(sheet.lengthMm, 0)} mm sheet by more than the tool radius: check the sheet size and the work offset.`);
   else sink.count('outside-sheet');
 }
 
 function spoilboardDepth(sink: FindingSink, line: number, zLo: number, bottomZ: number, allowanceMm: number): void {
-  if (sink.listing('spoilboard-depth')) sink.add('spoilboard-depth', 'warning', line, `Move at line ${line} goes to Z ${fmt(zLo, 3)} mm, ${fmt(bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(allowanceMm, 2)} mm spoilboard allowance: it cuts the spoilboard or the table.`);
+  if (sink.listing('spoilboard-depth')) sink.add('spoilboard-depth', 'warning', line, `A move goes to Z ${fmt(zLo, 3)} mm, ${fmt(bottomZ - zLo, 2)} mm below the sheet bottom, deeper than the ${fmt(allowanceMm, 2)} mm spoilboard allowance: it cuts into the spoilboard or the table.`);
   else sink.count('spoilboard-depth');
 }
 
 function outsideTravel(sink: FindingSink, line: number, mach: MachineLimits): void {
   const off = mach.workOffset!;
-  if (sink.listing('outside-travel')) sink.add('outside-travel', 'error', line, `Move at line ${line} leaves the machine's travel (X 0–${fmt(mach.travel.x, 0)}, Y 0–${fmt(mach.travel.y, 0)}, Z −${fmt(mach.travel.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine will stop on a limit or refuse the program.`);
+  if (sink.listing('outside-travel')) sink.add('outside-travel', 'error', line, `A move leaves the machine's travel (X 0–${fmt(mach.travelMm.x, 0)}, Y 0–${fmt(mach.travelMm.y, 0)}, Z −${fmt(mach.travelMm.z, 0)}–0 mm in machine coordinates with the work offset ${fmt(off.x, 1)}, ${fmt(off.y, 1)}, ${fmt(off.z, 1)}): the machine may stop on a limit, refuse the program or hit its frame.`);
   else sink.count('outside-travel');
 }
 
 function feedClamped(sink: FindingSink, line: number, feedMmPerMin: number, limit: number): void {
-  if (sink.listing('feed-clamped')) sink.add('feed-clamped', 'info', line, `Feed F${fmt(feedMmPerMin, 0)} mm/min at line ${line} is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
+  if (sink.listing('feed-clamped')) sink.add('feed-clamped', 'info', line, `Feed F${fmt(feedMmPerMin, 0)} mm/min is above what the machine's axis limits allow along this move (${fmt(limit, 0)} mm/min): the controller runs it slower, and the estimate uses the lower feed.`);
   else sink.count('feed-clamped');
 }

@@ -22,7 +22,7 @@ export interface ScanLevels {
   bandTopZ: number | null;
   stockTopZ: number | null;
   chainToleranceMm: number;
-  arcToleranceMm: number;
+  chordToleranceMm: number;
   tabMaxLengthMm: number;
 }
 
@@ -133,7 +133,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
     : null;
   const bandTop = levels.bandTopZ ?? -Infinity;
   const chords = new ArcChords();
-  const tolNear = levels.arcToleranceMm, tolFar = levels.arcToleranceMm * 10;
+  const tolNear = levels.chordToleranceMm, tolFar = levels.chordToleranceMm * 10;
   // Every double handed to a call that is not inlined goes through a typed array: as an
   // argument V8 would box it, and a loop variable passed so turns into a boxed one throughout,
   // allocating on every move. m holds the move for the checks (its start and end also feed

@@ -33,7 +33,7 @@ export interface AnalysisSettings {
   /** end points closer than this in XY are the same point when loops are chained, mm */
   chainToleranceMm: number;
   /** largest distance between an arc and its chords, mm */
-  arcToleranceMm: number;
+  chordToleranceMm: number;
   /** findings kept per kind; the rest are counted in the summary */
   maxFindingsPerKind: number;
 }
@@ -49,7 +49,7 @@ export const DEFAULT_SETTINGS: Readonly<AnalysisSettings> = Object.freeze({
   thinSheetMm: 6.35,
   spoilboardAllowanceMm: 1.0,
   chainToleranceMm: 0.01,
-  arcToleranceMm: 0.01,
+  chordToleranceMm: 0.01,
   maxFindingsPerKind: 25,
 });
 

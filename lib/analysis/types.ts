@@ -32,18 +32,17 @@ export interface SheetSpec {
 
 export interface ToolSpec {
   number: number;
-  /** mm */
-  diameter: number;
+  diameterMm: number;
   flutes: number;
   /** up-cut, down-cut, compression, straight, V, ball (spelling and case are free) */
   kind: string;
 }
 
 export interface MachineLimits {
-  /** travel per axis, mm: machine X and Y in [0, travel], Z in [−travel, 0] (Z home at the top) */
-  travel: { x: number; y: number; z: number };
-  /** mm/min per axis */
-  maxFeed: { x: number; y: number; z: number };
+  /** travel per axis: machine X and Y in [0, travel], Z in [−travel, 0] (Z home at the top) */
+  travelMm: { x: number; y: number; z: number };
+  /** fastest cutting feed per axis */
+  maxFeedMmPerMin: { x: number; y: number; z: number };
   /** G54 origin in machine coordinates, mm; without it the travel is checked as a span */
   workOffset?: { x: number; y: number; z: number };
 }
@@ -51,7 +50,8 @@ export interface MachineLimits {
 export interface AnalysisInput {
   sheet: SheetSpec | null;
   zZero: 'top' | 'table';
-  holdDown: HoldDownMethod;
+  /** null: none was named, so only the tabs or onion skin the program leaves hold a part */
+  holdDown: HoldDownMethod | null;
   /** vacuum level, kPa below atmosphere */
   vacuumKpa?: number;
   tools: ToolSpec[];
@@ -130,7 +130,7 @@ export interface AnalysisSummary {
   suppressed: Partial<Record<FindingKind, number>>;
   stockTopZ: number | null;
   sheetBottomZ: number | null;
-  holdDown: HoldDownMethod;
+  holdDown: HoldDownMethod | null;
   vacuumKpa: number | null;
   settings: AnalysisSettings;
   note: string;

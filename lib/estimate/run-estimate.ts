@@ -6,6 +6,7 @@
 import { analyze, type AnalysisResult, type HoldDownMethod } from '../analysis';
 import { interpret, type InterpretResult } from '../gcode';
 import { buildEstimateReport, estimate, stockTopZ, type Estimate, type EstimateReport } from '../kinematics';
+import { r6 } from '../kinematics/estimate-report';
 import type { MachineProfile } from '../validation/machine-profile';
 
 export interface EstimateJob {
@@ -30,16 +31,16 @@ export interface EstimateRun {
 }
 
 export function runEstimate(text: string, profile: MachineProfile, job: EstimateJob, file: EstimateFile): EstimateRun {
-  const interpretation = interpret(text, { home: profile.home });
+  const interpretation = interpret(text, { home: profile.homeMm });
   const est = estimate(interpretation.moves, profile, { stockTopZ: stockTopZ(job.zero, job.sheet?.thicknessMm) });
   const checks = analyze(interpretation.moves, {
     sheet: job.sheet,
     zZero: job.zero,
-    // the cautious reading when no hold-down was named: no part is called held by one
-    holdDown: job.hold ?? 'tabs',
+    // null: the cautious reading, no part is called held by a hold-down nobody named
+    holdDown: job.hold,
     vacuumKpa: job.vacuumKpa ?? undefined,
-    tools: profile.tools.map((t) => ({ number: t.number, diameter: t.diameter, flutes: t.flutes, kind: t.kind })),
-    machine: { travel: profile.travel, maxFeed: profile.maxFeed },
+    tools: profile.tools.map((t) => ({ number: t.number, diameterMm: t.diameterMm, flutes: t.flutes, kind: t.kind })),
+    machine: { travelMm: profile.travelMm, maxFeedMmPerMin: profile.maxFeedMmPerMin },
   });
   // the settings are the shop's, not the program's: they stay out of the per-program report
   const { settings: _settings, ...summary } = checks.summary;
@@ -49,8 +50,27 @@ export function runEstimate(text: string, profile: MachineProfile, job: Estimate
     estimate: est,
     diagnostics: interpretation.diagnostics,
     extraFindings: checks.findings,
-    parts: checks.parts,
-    checks: { ...summary, holdDownAssumed: job.hold === null, plungePoints: checks.plungePoints.toArray() },
+    // lengths rounded to the nm like every other length in the report
+    parts: checks.parts.map((p) => ({ ...p, perimeterMm: r6(p.perimeterMm) })),
+    checks: {
+      ...summary,
+      // the counts cover every finding listed, the interpreter's as well as the checks' own
+      ...countBySeverity(interpretation.diagnostics, checks.findings),
+      holdDownAssumed: job.hold === null,
+      plungePoints: checks.plungePoints.toArray(),
+    },
   });
   return { report, interpretation, estimate: est, checks };
+}
+
+function countBySeverity(...lists: ReadonlyArray<{ severity: string }>[]): { errors: number; warnings: number; infos: number } {
+  const n = { errors: 0, warnings: 0, infos: 0 };
+  for (const list of lists) {
+    for (const f of list) {
+      if (f.severity === 'error') n.errors++;
+      else if (f.severity === 'warning') n.warnings++;
+      else n.infos++;
+    }
+  }
+  return n;
 }

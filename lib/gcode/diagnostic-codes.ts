@@ -55,6 +55,8 @@ export const DIAGNOSTIC_CODES = {
   'unsupported-canned-cycle': { severity: 'error', summary: 'G84/G86/G87/G88 are not interpreted; the cycle is skipped' },
   // program flow
   'lines-after-program-end': { severity: 'warning', summary: 'code after M2/M30; not interpreted' },
+  'percent-unclosed': { severity: 'error', summary: 'the file opens with a % line but none closes it (NISTIR 6556 §3.1); it may be cut short' },
+  'lines-after-closing-percent': { severity: 'warning', summary: 'text after the closing % line (NISTIR 6556 §3.1); not interpreted' },
   'program-end-missing': { severity: 'info', summary: 'no M2/M30 at the end of the program' },
   'diagnostics-truncated': { severity: 'info', summary: 'further findings of one code were counted, not listed' },
 } as const satisfies Record<string, { severity: Severity; summary: string }>;

@@ -1,7 +1,8 @@
 // Interprets one tokenized line in the order of execution of NISTIR 6556 §3.8: feed mode,
-// F, S, T, M6, spindle, coolant, dwell, plane, units, compensation, coordinate system, path
-// mode, distance mode, retract mode, G28/G30/G10/G92, motion, stops. Lines with errors the
-// standard treats as fatal are reported with their text and skipped; the program goes on.
+// F, S, T, M6 (which leaves the spindle stopped, §3.6.3), spindle, coolant, dwell, plane,
+// units, compensation, coordinate system, path mode, distance mode, retract mode,
+// G28/G30/G10/G92, motion, stops. Lines with errors the standard treats as fatal are reported
+// with their text and skipped; the program goes on.
 // One deviation: G20/G21 take effect before F on the same line, as CAM output intends.
 import { cannedCycle as cannedCycleImp } from './canned-cycles';
 import { INCH_MM, type Interp } from './interpreter-state';
@@ -139,6 +140,10 @@ export function executeLine(ip: Interp, issues: number): void {
   if (mSlot[MGroup.toolChange] >= 0) {
     if (ip.selectedTool < 0) d.add('tool-change-without-tool', n, 'M6 with no T selected; the tool is unknown', t);
     else ip.tool = ip.selectedTool;
+    // NISTIR 6556 §3.6.3: when the change is complete the spindle is stopped (its speed stays
+    // in force), so the next cut needs an M3/M4 and that start spins the spindle up again
+    ip.spindleOn = false;
+    ip.spindleCcw = false;
     ip.atRest(MoveKind.toolChange);
   }
   const spindle = mSlot[MGroup.spindle];

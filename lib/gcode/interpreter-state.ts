@@ -15,8 +15,8 @@ const MoveFlag = { ...MOVE_FLAG };
 
 export const INCH_MM = 25.4;
 /** NISTIR 6556 §3.5.3.2: start/end radius tolerance, in program units */
-export const ARC_TOLERANCE_MM = 0.002;
-export const ARC_TOLERANCE_IN = 0.0002;
+export const ARC_END_RADIUS_TOLERANCE_MM = 0.002;
+export const ARC_END_RADIUS_TOLERANCE_IN = 0.0002;
 
 export class Interp {
   readonly moves: MoveListBuilder;
@@ -86,8 +86,8 @@ export class Interp {
     this.continueAfterEnd = options.continueAfterEnd === true;
   }
 
-  get arcToleranceMm(): number {
-    return this.inch ? ARC_TOLERANCE_IN * INCH_MM : ARC_TOLERANCE_MM;
+  get arcEndRadiusToleranceMm(): number {
+    return this.inch ? ARC_END_RADIUS_TOLERANCE_IN * INCH_MM : ARC_END_RADIUS_TOLERANCE_MM;
   }
 
   flags(): number {

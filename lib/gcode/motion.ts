@@ -84,7 +84,7 @@ export function arcMove(ip: Interp, ccw: boolean): void {
   const ea = pick(aA, ex, ey, ez);
   const eb = pick(aB, ex, ey, ez);
   const unit = ip.inch ? 'in' : 'mm';
-  const tol = ip.arcToleranceMm;
+  const tol = ip.arcEndRadiusToleranceMm;
   let ca: number;
   let cb: number;
   let radius: number;

@@ -13,7 +13,7 @@ export const MoveKind = {
   feed: 1, // G1 and the feed legs of canned cycles
   arc: 2, // G2/G3: the arc table holds its centre, radius, plane and sweep
   dwell: 3, // G4 and cycle dwells: aux = seconds
-  toolChange: 4, // M6: tool = the new tool
+  toolChange: 4, // M6: tool = the new tool; the spindle is stopped from here (NISTIR 6556 §3.6.3)
   spindleStart: 5, // M3/M4 from stopped: spindle = rpm
   spindleStop: 6, // M5
   programStop: 7, // M0/M1

@@ -2,11 +2,11 @@
 // (axis-limits.ts), F, block rate and the centripetal cap, the block's kind for the
 // breakdown, and arcs walked chord by chord (arc-chords.ts).
 //
-// Arcs take a faster path than lines because a fine arc tolerance makes most blocks chords:
+// Arcs take a faster path than lines because a fine chord tolerance makes most blocks chords:
 // all chords of one arc share their length and corner angle, points advance by a fixed
 // rotation, and the corner between two chords of the same arc never binds when its
-// junction-deviation radius R = δ·s/(1 − s) (s = sin(θ/2)) is at least the arc radius r: the
-// junction speed √(a_w·R) is then at least √(a·r), which already caps the chords (a_w, the
+// corner-tolerance radius R = δ·s/(1 − s) (s = sin(θ/2), corner-speed.ts) is at least the arc
+// radius r: the corner speed √(a_w·R) is then at least √(a·r), which already caps the chords (a_w, the
 // acceleration along the in-plane vector u_out − u_in, is at least the plane's smaller axis
 // limit a). The last chord ends exactly on the move's end point and is planned in full.
 
@@ -50,27 +50,27 @@ export class BlockFeed {
   private readonly az: number;
   private readonly rate: number;
   private readonly tol: number;
-  private readonly deviation: number;
+  private readonly cornerTol: number;
   private readonly stockTop: number;
   private readonly pt = new Float64Array(3);
 
   constructor(planner: BlockPlanner, profile: MachineProfile, stockTopZ: number, start: { x: number; y: number; z: number }) {
     this.planner = planner;
-    this.ifx = 60 / profile.maxFeed.x;
-    this.ify = 60 / profile.maxFeed.y;
-    this.ifz = 60 / profile.maxFeed.z;
-    this.irx = 60 / profile.rapid.x;
-    this.iry = 60 / profile.rapid.y;
-    this.irz = 60 / profile.rapid.z;
-    this.ax = profile.accel.x;
-    this.ay = profile.accel.y;
-    this.az = profile.accel.z;
+    this.ifx = 60 / profile.maxFeedMmPerMin.x;
+    this.ify = 60 / profile.maxFeedMmPerMin.y;
+    this.ifz = 60 / profile.maxFeedMmPerMin.z;
+    this.irx = 60 / profile.rapidMmPerMin.x;
+    this.iry = 60 / profile.rapidMmPerMin.y;
+    this.irz = 60 / profile.rapidMmPerMin.z;
+    this.ax = profile.accelMmPerS2.x;
+    this.ay = profile.accelMmPerS2.y;
+    this.az = profile.accelMmPerS2.z;
     this.iax = 1 / this.ax;
     this.iay = 1 / this.ay;
     this.iaz = 1 / this.az;
-    this.rate = profile.maxBlockRate;
-    this.tol = profile.arcTolerance;
-    this.deviation = profile.junctionDeviation;
+    this.rate = profile.maxBlocksPerS;
+    this.tol = profile.chordToleranceMm;
+    this.cornerTol = profile.cornerToleranceMm;
     this.stockTop = stockTopZ - 1e-9;
     this.px = start.x;
     this.py = start.y;
@@ -111,7 +111,7 @@ export class BlockFeed {
     this.planner.push(move, kind, len, ux, uy, uz, v, 1 / inverseLimit(ux, uy, uz, this.iax, this.iay, this.iaz), cornerFree);
   }
 
-  /** Arc row `row` of `arcs`, ending at (ex,ey,ez), as chords within the arc tolerance. */
+  /** Arc row `row` of `arcs`, ending at (ex,ey,ez), as chords within the chord tolerance. */
   arc(move: number, arcs: ArcTable, row: number, ex: number, ey: number, ez: number, fMmPerS: number): void {
     const plane = arcs.plane[row];
     // in-plane axes p, q and the normal n, as indices into (x, y, z)
@@ -141,7 +141,7 @@ export class BlockFeed {
     // corner between two chords of this arc: cos θ = −u_in·u_out
     const dot = chordLen > 0 ? (inPlane * inPlane * Math.cos(phi) + rise * rise) / (chordLen * chordLen) : 1;
     const s = Math.sqrt(Math.max(0, (1 + dot) / 2));
-    const cornerFree = s >= 1 - 1e-12 || (this.deviation * s) / (1 - s) >= r;
+    const cornerFree = s >= 1 - 1e-12 || (this.cornerTol * s) / (1 - s) >= r;
     // When F and √(a·r) lie below every direction's axis feed limit in this arc's plane (and
     // along its normal on a helix), all inner chords share one speed limit.
     const ifMax = Math.max(ip === 0 || iq === 0 ? this.ifx : 0, ip === 1 || iq === 1 ? this.ify : 0, ip === 2 || iq === 2 ? this.ifz : 0, rise !== 0 ? (inn === 0 ? this.ifx : inn === 1 ? this.ify : this.ifz) : 0);

@@ -1,6 +1,9 @@
 // The estimate as one plain JSON object: what the CLI prints with --json and what the server
 // stores with a job. Kept in one place so that every consumer gets the same fields; the
 // through-cut analysis adds its findings and parts through `extraFindings` and `parts`.
+// Every key whose value has a unit names it (totalSeconds, distanceMm, feedDistanceMm,
+// commandedMmPerMin); a finding's message is a full sentence and leaves its own line number to
+// the `line` field (0: the whole program).
 
 import type { Diagnostic, Severity } from '../gcode/move-list';
 import type { Estimate } from './types';
@@ -33,24 +36,25 @@ export interface EstimateReport {
   file: { name: string; sha256: string; lines: number; units: 'mm' | 'inch' };
   totalSeconds: number;
   calibratedSeconds: number;
-  breakdown: { cutting: number; air: number; rapid: number; plunge: number; dwell: number; toolChange: number; spindle: number };
+  breakdownSeconds: { cutting: number; air: number; rapid: number; plunge: number; dwell: number; toolChange: number; spindle: number };
   programStops: number;
   moves: number;
-  distance: { feed: number; rapid: number };
-  tools: { tool: number; seconds: number; feedDistance: number }[];
-  cuttingFeed: { commanded: number; achieved: number; lostShare: number };
+  distanceMm: { feed: number; rapid: number };
+  tools: { tool: number; seconds: number; feedDistanceMm: number }[];
+  /** cutting moves only: the feed asked for and the feed reached, and the share of time lost */
+  cuttingFeed: { commandedMmPerMin: number; achievedMmPerMin: number; lostShare: number };
   findings: ReportFinding[];
   parts: unknown[];
   checks?: unknown;
 }
 
 /** Rounds for output only: µs for times, nm for distances, keeps the JSON stable and short. */
-const r6 = (v: number) => Math.round(v * 1e6) / 1e6;
+export const r6 = (v: number) => Math.round(v * 1e6) / 1e6;
 const r4 = (v: number) => Math.round(v * 10000) / 10000;
 
 export function buildEstimateReport(input: ReportInput): EstimateReport {
   const e = input.estimate;
-  const b = e.breakdown;
+  const b = e.breakdownSeconds;
   const findings: ReportFinding[] = input.diagnostics.map((d) => ({ kind: d.code, severity: d.severity, line: d.line, message: d.message }));
   if (input.extraFindings) findings.push(...input.extraFindings);
   // one list in program order, the way a programmer reads it against the file (stable sort:
@@ -61,7 +65,7 @@ export function buildEstimateReport(input: ReportInput): EstimateReport {
     file: { ...input.file },
     totalSeconds: r6(e.totalSeconds),
     calibratedSeconds: r6(e.calibratedSeconds),
-    breakdown: {
+    breakdownSeconds: {
       cutting: r6(b.cutting),
       air: r6(b.air),
       rapid: r6(b.rapid),
@@ -72,11 +76,11 @@ export function buildEstimateReport(input: ReportInput): EstimateReport {
     },
     programStops: e.programStops,
     moves: e.moves,
-    distance: { feed: r6(e.distance.feed), rapid: r6(e.distance.rapid) },
-    tools: e.tools.map((t) => ({ tool: t.tool, seconds: r6(t.seconds), feedDistance: r6(t.feedDistance) })),
+    distanceMm: { feed: r6(e.distanceMm.feed), rapid: r6(e.distanceMm.rapid) },
+    tools: e.tools.map((t) => ({ tool: t.tool, seconds: r6(t.seconds), feedDistanceMm: r6(t.feedDistanceMm) })),
     cuttingFeed: {
-      commanded: r6(e.cuttingFeed.commandedMmPerMin),
-      achieved: r6(e.cuttingFeed.achievedMmPerMin),
+      commandedMmPerMin: r6(e.cuttingFeed.commandedMmPerMin),
+      achievedMmPerMin: r6(e.cuttingFeed.achievedMmPerMin),
       lostShare: r4(e.cuttingFeed.lostShare),
     },
     findings,

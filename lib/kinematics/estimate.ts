@@ -2,28 +2,31 @@
 //
 // Motion model (tests/unit/kinematics pin it; sources in the modules named):
 // - F is the feed along the path (RS274/NGC, NISTIR 6556 §2.1.2.5). A feed block's speed limit
-//   is min(F, min over moving axes of maxFeed_i/|u_i|), a rapid's min over moving axes of
-//   rapid_i/|u_i| (straight-line rapid); its acceleration min over moving axes of
-//   accel_i/|u_i| (axis-limits.ts). A feed move with no F runs at the axis limits.
+//   is min(F, min over moving axes of maxFeedMmPerMin_i/|u_i|), a rapid's min over moving axes
+//   of rapidMmPerMin_i/|u_i| (straight-line rapid); its acceleration min over moving axes of
+//   accelMmPerS2_i/|u_i| (axis-limits.ts). A feed move with no F runs at the axis limits.
 // - Trapezoidal (constant-acceleration) profiles (trapezoid.ts, Biagiotti & Melchiorri §3.2.2).
 //   The program starts at the move list's start point and at rest, and ends at rest; so does
 //   every tool change, spindle start or stop, dwell, program stop or end, and every move run
 //   under G61 (exact stop).
-// - Corners by junction deviation (junction.ts, Jeon 2011): v = √(a·δ·sin(θ/2)/(1 − sin(θ/2))),
+// - Corners by the corner tolerance δ (corner-speed.ts: plane geometry of a circle inscribed in
+//   the corner, and a = v²/R of uniform circular motion): v = √(a·δ·sin(θ/2)/(1 − sin(θ/2))),
 //   capped by both blocks' limits; straight on keeps speed, a reversal stops.
-// - Arcs are flattened to chords within arcTolerance (arc-chords.ts, block-feed.ts); each chord is a block,
+// - Arcs are flattened to chords within chordToleranceMm (arc-chords.ts, block-feed.ts); each chord is a block,
 //   capped also by √(a·r), a the smaller acceleration limit of the arc plane's two axes.
 //   Chords are timed and counted at the arc's own length (helix length on a helix: F is
 //   along the path, NISTIR 6556 §2.1.2.5), their directions are the chords'.
 // - Look-ahead of N blocks (planner.ts): the planner only uses speed from which it could still
 //   stop within the N blocks it holds, as if the program ended N blocks ahead. Block rate R:
-//   a block's speed is capped at length·R so that it lasts at least 1/R s. lookahead 0 and
-//   maxBlockRate 0 mean unlimited.
+//   a block's speed is capped at length·R so that it lasts at least 1/R s. lookaheadBlocks 0
+//   and maxBlocksPerS 0 mean unlimited.
 // - Time = Σ block times + toolChangeSeconds per M6 + spindleSpinUpSeconds per M3/M4 from
 //   stopped + dwell P. M0/M1 are counted as program stops with no time.
 //   calibratedSeconds = total × timeFactor.
 // - Breakdown: rapid; feed blocks are plunge when going down more steeply than 45°, else
-//   cutting when any part lies below the stock top, else air.
+//   cutting when any part lies below the stock top, else air. The 45° line is our own,
+//   neither sourced nor computed (common practice: ramps enter at a few degrees, plunges
+//   straight down; docs/references.md).
 
 import { MoveFlag, MoveKind, type MoveList } from '../gcode/move-list';
 import type { MachineProfile } from '../validation/machine-profile';
@@ -40,7 +43,7 @@ const EXACT_STOP = MoveFlag.exactStop;
 
 export function estimate(moves: MoveList, profile: MachineProfile, options: EstimateOptions = {}): Estimate {
   const timeline = new Timeline(moves);
-  const planner = new BlockPlanner(timeline, profile.lookahead, profile.accel, profile.junctionDeviation);
+  const planner = new BlockPlanner(timeline, profile.lookaheadBlocks, profile.accelMmPerS2, profile.cornerToleranceMm);
   const feedBlocks = new BlockFeed(planner, profile, options.stockTopZ ?? 0, { x: moves.startX, y: moves.startY, z: moves.startZ });
   const { x, y, z, kind, flags, feed, aux, arcs } = moves;
   const count = moves.count;
@@ -95,7 +98,7 @@ export function estimate(moves: MoveList, profile: MachineProfile, options: Esti
   return {
     totalSeconds: total,
     calibratedSeconds: total * profile.timeFactor,
-    breakdown: {
+    breakdownSeconds: {
       cutting: cuttingS,
       air: b[TimeKind.air],
       rapid: b[TimeKind.rapid],
@@ -107,7 +110,7 @@ export function estimate(moves: MoveList, profile: MachineProfile, options: Esti
     programStops,
     moves: count,
     blocks: timeline.blocks,
-    distance: { feed: timeline.feedDistanceMm, rapid: timeline.rapidDistanceMm },
+    distanceMm: { feed: timeline.feedDistanceMm, rapid: timeline.rapidDistanceMm },
     tools: timeline.toolTotals(),
     cuttingFeed: {
       distanceMm: dist,

@@ -4,7 +4,7 @@ export { estimate } from './estimate';
 export { moveAtTime } from './move-at-time';
 export { stockTopZ, type ZeroAt } from './stock-top';
 export { blockDurationS, restToRestDurationS } from './trapezoid';
-export { junctionSpeed, junctionSpeedForAngle } from './junction';
+export { cornerSpeedLimit, cornerSpeedForAngle } from './corner-speed';
 export { limitAlong } from './axis-limits';
 export { chordCount } from './arc-chords';
 export { buildEstimateReport, type EstimateReport, type ReportFinding, type ReportInput } from './estimate-report';

@@ -4,7 +4,7 @@
 // - Each block has a cruise limit v (already projected per axis and capped by F, block rate
 //   and, on arcs, √(a·r)), an acceleration limit a and a length d; it runs a trapezoidal
 //   profile between its entry and exit speeds (trapezoid.ts).
-// - The speed at a vertex is capped by the junction-deviation speed (junction.ts) and by both
+// - The speed at a vertex is capped by the corner speed limit (corner-speed.ts) and by both
 //   blocks' cruise limits. After a forced stop (flush) the next block starts from rest.
 // - Look-ahead of N blocks: when block i starts, the planner holds blocks i … i+N−1 and must
 //   be able to stop at the end of block i+N−1, as if the program ended there. So the exit
@@ -13,7 +13,7 @@
 //   N = 1 stops at the end of every block; N = 0 holds everything up to the next forced stop.
 //
 // The backward pass b²_j = min(cap²_{j+1}, b²_{j+1} + w_{j+1}) (w = 2·a·d, cap² the squared
-// junction cap, b²_e = 0 at the window end e) unrolls, with prefix sums S_j = Σ_{i≤j} w_i, to
+// corner cap, b²_e = 0 at the window end e) unrolls, with prefix sums S_j = Σ_{i≤j} w_i, to
 //   b²_j = min( min_{j<k≤e} (cap²_k + S_{k−1}),  S_e ) − S_j,
 // so the exit bound of the oldest block is a sliding-window minimum, kept in a monotonic
 // deque: O(1) amortised per block whatever N is. The forward pass on execution takes
@@ -22,11 +22,11 @@
 // Memory: a ring of typed arrays (61 bytes a slot) of N blocks, or for N = 0 as many as lie
 // between two forced stops.
 
-import { junctionSpeed } from './junction';
+import { cornerSpeedLimit } from './corner-speed';
 import type { Timeline } from './timeline';
 import { blockDurationS } from './trapezoid';
 
-const jSpeed = junctionSpeed;
+const cornerSpeed = cornerSpeedLimit;
 const duration = blockDurationS;
 const SLOT_BYTES = 7 * 8 + 4 + 1;
 
@@ -58,12 +58,12 @@ export class BlockPlanner {
   private puy = 0;
   private puz = 0;
   private pvmax = 0;
-  private readonly lookahead: number;
+  private readonly lookaheadBlocks: number;
   private readonly sink: Timeline;
   private readonly accelX: number;
   private readonly accelY: number;
   private readonly accelZ: number;
-  private readonly deviation: number;
+  private readonly cornerTol: number;
   peakBlocks = 0;
   // the run of executed blocks not yet handed to the sink
   private runMove = -1;
@@ -72,15 +72,15 @@ export class BlockPlanner {
   private runS = 0;
   private runBlocks = 0;
 
-  constructor(sink: Timeline, lookahead: number, accel: { x: number; y: number; z: number }, deviationMm: number) {
+  constructor(sink: Timeline, lookaheadBlocks: number, accel: { x: number; y: number; z: number }, cornerToleranceMm: number) {
     this.sink = sink;
-    this.lookahead = lookahead;
+    this.lookaheadBlocks = lookaheadBlocks;
     this.accelX = accel.x;
     this.accelY = accel.y;
     this.accelZ = accel.z;
-    this.deviation = deviationMm;
+    this.cornerTol = cornerToleranceMm;
     let c = 16;
-    while (c < lookahead + 1) c *= 2;
+    while (c < lookaheadBlocks + 1) c *= 2;
     this.capacity = c;
     this.mask = c - 1;
     this.len = new Float64Array(c);
@@ -100,14 +100,14 @@ export class BlockPlanner {
 
   /**
    * Adds a block of `move` along the unit vector (ux,uy,uz); `vmax` and `accel` are its own
-   * limits (mm/s, mm/s²). `cornerFree`: the caller knows the junction speed to the previous
+   * limits (mm/s, mm/s²). `cornerFree`: the caller knows the corner speed to the previous
    * block is at least both limits (chords inside one arc), so the formula is skipped.
    */
   push(move: number, kind: number, lengthMm: number, ux: number, uy: number, uz: number, vmax: number, accel: number, cornerFree = false): void {
     if (this.size === this.capacity) this.grow();
     let c2 = 0;
     if (this.hasPrev) {
-      let v = cornerFree ? Infinity : jSpeed(this.pux, this.puy, this.puz, ux, uy, uz, this.accelX, this.accelY, this.accelZ, this.deviation);
+      let v = cornerFree ? Infinity : cornerSpeed(this.pux, this.puy, this.puz, ux, uy, uz, this.accelX, this.accelY, this.accelZ, this.cornerTol);
       if (v > vmax) v = vmax;
       if (v > this.pvmax) v = this.pvmax;
       c2 = v * v;
@@ -138,7 +138,7 @@ export class BlockPlanner {
     dqVal[back] = value;
     this.dqSize++;
 
-    if (this.lookahead > 0 && this.size >= this.lookahead) this.executeOldest();
+    if (this.lookaheadBlocks > 0 && this.size >= this.lookaheadBlocks) this.executeOldest();
   }
 
   private executeOldest(): void {

@@ -15,7 +15,7 @@ const CUTTING = TimeKind.cutting;
 interface ToolTally {
   tool: number;
   seconds: number;
-  feedDistance: number;
+  feedDistanceMm: number;
 }
 
 export class Timeline {
@@ -47,7 +47,7 @@ export class Timeline {
     if (t && t.tool === tool) return t;
     t = this.tools.get(tool) ?? null;
     if (!t) {
-      t = { tool, seconds: 0, feedDistance: 0 };
+      t = { tool, seconds: 0, feedDistanceMm: 0 };
       this.tools.set(tool, t);
     }
     this.current = t;
@@ -75,7 +75,7 @@ export class Timeline {
       this.rapidDistanceMm += lengthMm;
     } else {
       this.feedDistanceMm += lengthMm;
-      tally.feedDistance += lengthMm;
+      tally.feedDistanceMm += lengthMm;
       if (kind === CUTTING) {
         this.cuttingDistanceMm += lengthMm;
         const f = this.feedOf[move];
@@ -100,6 +100,6 @@ export class Timeline {
   }
 
   toolTotals(): ToolTally[] {
-    return [...this.tools.values()].filter((t) => t.seconds > 0 || t.feedDistance > 0).sort((a, b) => a.tool - b.tool);
+    return [...this.tools.values()].filter((t) => t.seconds > 0 || t.feedDistanceMm > 0).sort((a, b) => a.tool - b.tool);
   }
 }

@@ -19,7 +19,7 @@ export interface ToolSeconds {
   /** every second spent with this tool in the spindle, its tool change included */
   seconds: number;
   /** feed (non-rapid) distance cut or travelled with it, mm */
-  feedDistance: number;
+  feedDistanceMm: number;
 }
 
 export interface CuttingFeed {
@@ -37,14 +37,14 @@ export interface Estimate {
   totalSeconds: number;
   /** totalSeconds × the profile's timeFactor */
   calibratedSeconds: number;
-  breakdown: EstimateBreakdown;
+  breakdownSeconds: EstimateBreakdown;
   /** M0/M1: counted, no time */
   programStops: number;
   /** records in the move list */
   moves: number;
   /** planner blocks (arcs count one per chord) */
   blocks: number;
-  distance: { feed: number; rapid: number };
+  distanceMm: { feed: number; rapid: number };
   tools: ToolSeconds[];
   cuttingFeed: CuttingFeed;
   /** clock at the end of every move, s (non-decreasing; see moveAtTime) */

@@ -1,7 +1,8 @@
 // Machine profile: the limits the run-time estimate rests on. The same schema validates the
 // admin form, the `machines` API and the CLI's PROFILE.json. Lengths mm, feeds mm/min,
-// accelerations mm/s², times s. `lookahead` 0 and `maxBlockRate` 0 mean unlimited.
-import { z } from 'zod';
+// accelerations mm/s², times s, each field named with its unit. `lookaheadBlocks` 0 and
+// `maxBlocksPerS` 0 mean unlimited.
+import { z } from '@/lib/validation/zod';
 
 type Issue = { input?: unknown };
 const need = (expected: string) => (iss: Issue) => (iss.input === undefined ? 'is required' : `must be ${expected}`);
@@ -16,7 +17,7 @@ export type ToolKind = (typeof TOOL_KINDS)[number];
 
 export const toolSchema = z.object({
   number: int().min(0, { error: 'must be 0 or more' }).max(65535, { error: 'must be 65535 or less' }),
-  diameter: positive(),
+  diameterMm: positive(),
   flutes: int().min(1, { error: 'must be 1 or more' }),
   kind: z.enum(TOOL_KINDS, { error: need(`one of ${TOOL_KINDS.join(', ')}`) }),
 });
@@ -24,15 +25,17 @@ export const toolSchema = z.object({
 export const machineProfileSchema = z
   .object({
     name: z.string({ error: need('text') }).trim().min(1, { error: 'must not be empty' }).max(120, { error: 'must be 120 characters or fewer' }),
-    travel: axes(positive), // mm
-    home: axes(num), // machine coordinates, mm
-    maxFeed: axes(positive), // mm/min
-    rapid: axes(positive), // mm/min
-    accel: axes(positive), // mm/s²
-    junctionDeviation: nonNegative(), // mm
-    lookahead: int().min(0, { error: 'must be 0 (unlimited) or more' }).max(100000, { error: 'must be 100000 or less' }), // blocks
-    maxBlockRate: nonNegative(), // blocks/s, 0 = unlimited
-    arcTolerance: positive(), // mm
+    travelMm: axes(positive),
+    homeMm: axes(num), // machine coordinates
+    maxFeedMmPerMin: axes(positive),
+    rapidMmPerMin: axes(positive),
+    accelMmPerS2: axes(positive),
+    /** how far the path may pass inside a sharp corner between two straight blocks (lib/kinematics/corner-speed.ts) */
+    cornerToleranceMm: nonNegative(),
+    lookaheadBlocks: int().min(0, { error: 'must be 0 (unlimited) or more' }).max(100000, { error: 'must be 100000 or less' }),
+    maxBlocksPerS: nonNegative(), // 0 = no limit
+    /** largest distance between an arc and the chords it is flattened into */
+    chordToleranceMm: positive(),
     toolChangeSeconds: nonNegative(),
     spindleSpinUpSeconds: nonNegative(),
     timeFactor: positive(),

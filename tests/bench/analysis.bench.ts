@@ -48,7 +48,7 @@ export default async function bench(): Promise<void> {
     holdDown: 'vacuum',
     vacuumKpa: 60,
     tools: machine.tools,
-    machine: { travel: { x: extent.widthMm + 100, y: extent.lengthMm + 100, z: machine.travel.z }, maxFeed: machine.maxFeed },
+    machine: { travelMm: { x: extent.widthMm + 100, y: extent.lengthMm + 100, z: machine.travelMm.z }, maxFeedMmPerMin: machine.maxFeedMmPerMin },
   };
 
   // The three steps timed back to back in each round, so that a round's ratio compares times
@@ -91,14 +91,14 @@ export default async function bench(): Promise<void> {
 
   const distinct = generateProgram(LINES, 7, DEFAULT_DIALECT, { designsPerSheet: NEST_SHEET.partsPerSheet });
   const dExtent = nestExtentMm(sheetsIn(distinct));
-  const dInput: AnalysisInput = { ...input, sheet: { ...dExtent, thicknessMm: BIRCH_18.thicknessMm }, machine: { ...input.machine!, travel: { x: dExtent.widthMm + 100, y: dExtent.lengthMm + 100, z: machine.travel.z } } };
+  const dInput: AnalysisInput = { ...input, sheet: { ...dExtent, thicknessMm: BIRCH_18.thicknessMm }, machine: { ...input.machine!, travelMm: { x: dExtent.widthMm + 100, y: dExtent.lengthMm + 100, z: machine.travelMm.z } } };
   const dInterp = best(1, () => interpret(distinct));
   const dPlan = best(1, () => estimate(dInterp.value.moves, parsed.profile));
   const dAn = best(1, () => analyze(dInterp.value.moves, dInput));
   console.log(`every part different (${dAn.value.parts.length} parts, no reuse): interpret ${dInterp.ms.toFixed(0)} ms, planning ${dPlan.ms.toFixed(0)} ms, analyze ${dAn.ms.toFixed(0)} ms, ratio ${(dAn.ms / (dInterp.ms + dPlan.ms)).toFixed(3)}`);
 
   const nest = generateNestSheet({ cols: 60, rows: 100, partWidthMm: 30, partHeightMm: 20, gapMm: 8, holeRadiusMm: 4 });
-  const nestInput: AnalysisInput = { ...input, sheet: nest.sheet, machine: undefined, tools: [{ number: 1, diameter: 3.175, flutes: 2, kind: 'compression' }] };
+  const nestInput: AnalysisInput = { ...input, sheet: nest.sheet, machine: undefined, tools: [{ number: 1, diameterMm: 3.175, flutes: 2, kind: 'compression' }] };
   const nestInterp = best(1, () => interpret(nest.text));
   const nestAn = best(1, () => analyze(nestInterp.value.moves, nestInput));
   const n = nestAn.value.parts.length;

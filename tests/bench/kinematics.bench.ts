@@ -23,7 +23,7 @@ export default async function kinematicsBench(): Promise<void> {
   const profile = parsed.profile;
 
   const text = generateProgram(LINES, 1);
-  console.log(`program: ${LINES.toLocaleString('en')} lines, ${(text.length / 1048576).toFixed(1)} MB; machine ${profile.name} (look-ahead ${profile.lookahead}, block rate ${profile.maxBlockRate}/s)`);
+  console.log(`program: ${LINES.toLocaleString('en')} lines, ${(text.length / 1048576).toFixed(1)} MB; machine ${profile.name} (look-ahead ${profile.lookaheadBlocks} blocks, block rate ${profile.maxBlocksPerS}/s)`);
 
   // warm-up so that neither path pays for compilation in the timed rounds
   const warm = text.slice(0, 2_000_000);
@@ -62,5 +62,5 @@ export default async function kinematicsBench(): Promise<void> {
   console.log(`planning alone:                  ${(p / 1000).toFixed(2)} s   ${((moves / p) * 1000 / 1e6).toFixed(1)} M moves/s, ${last.blocks.toLocaleString('en')} blocks from ${moves.toLocaleString('en')} moves`);
   const held = last.cumulativeS.byteLength + last.plannerBytes;
   console.log(`planner memory:                  ${(held / moves).toFixed(1)} bytes/move held (clock ${last.cumulativeS.byteLength / moves} B/move + ring ${last.plannerBytes} B, peak ${last.plannerPeakBlocks} blocks); heap growth during planning ${(heapGrowth / moves).toFixed(1)} bytes/move`);
-  console.log(`estimate: ${(last.totalSeconds / 3600).toFixed(2)} h, cutting ${(last.breakdown.cutting / 3600).toFixed(2)} h, ${last.tools.length} tools`);
+  console.log(`estimate: ${(last.totalSeconds / 3600).toFixed(2)} h, cutting ${(last.breakdownSeconds.cutting / 3600).toFixed(2)} h, ${last.tools.length} tools`);
 }

@@ -143,7 +143,7 @@ describe('CutGraph', () => {
     const pts = [[0, 0], [0, 20], [20, 20], [20, 0], [0, 0]];
     for (let i = 1; i < pts.length; i++) cw.addPiece(pts[i - 1][0], pts[i - 1][1], -18.2, pts[i][0], pts[i][1], -18.2, i, 1);
     check(cw, [400]);
-    // two squares side by side sharing the side X 20: junctions of three edges at its ends
+    // two squares side by side sharing the side X 20: branch points of three edges at its ends
     const two = new CutGraph(0.01, THROUGH_Z);
     square(two, 0, 0, 20, -18.2, 0);
     square(two, 20, 0, 20, -18.2, 10);

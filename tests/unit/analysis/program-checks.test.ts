@@ -6,8 +6,8 @@ import { ProgramWriter } from './support/program';
 import { job } from './support/jobs';
 
 const machine: NonNullable<AnalysisInput['machine']> = {
-  travel: { x: 3060, y: 1530, z: 180 },
-  maxFeed: { x: 30000, y: 30000, z: 10000 },
+  travelMm: { x: 3060, y: 1530, z: 180 },
+  maxFeedMmPerMin: { x: 30000, y: 30000, z: 10000 },
 };
 const ofKind = (r: ReturnType<typeof analyze>, kind: string) => r.findings.filter((f) => f.kind === kind);
 
@@ -72,7 +72,7 @@ describe('program checks', () => {
   });
 
   it('feed-clamped at the lowest axis limit: F10000 straight down is exactly the Z limit and not clamped; F10100 is', () => {
-    // along a pure Z move the limit is maxFeed.z = 10000 mm/min itself (one axis moves)
+    // along a pure Z move the limit is maxFeedMmPerMin.z = 10000 mm/min itself (one axis moves)
     const w = new ProgramWriter();
     w.rapid(0, 0, 5).feed(0, 0, -1, 10000).retract().feed(0, 0, -1, 10100).retract();
     const f = ofKind(analyze(w.build(), job(18, 'tape-glue', { machine })), 'feed-clamped');
@@ -80,7 +80,7 @@ describe('program checks', () => {
   });
 
   it('feed-clamped between the Z and the XY limits: F25000 level or on an arc is not clamped; a steep ramp at F25000 is', () => {
-    // limit along a move = min over moving axes of maxFeed·len/|d|: a level move has no Z part
+    // limit along a move = min over moving axes of maxFeedMmPerMin·len/|d|: a level move has no Z part
     // (limit ≥ 30000); the 45° ramp from Z 5 to Z −5 over 10 mm of X has len 10√2, so Z allows
     // 10000·√2 ≈ 14142 mm/min; a shallow ramp (10 mm down over 100 mm) allows 10000·√(100² + 10²)/10 ≈ 100499
     const w = new ProgramWriter();
@@ -113,7 +113,7 @@ describe('program checks', () => {
     const span = (clockwise: boolean) => {
       const w = new ProgramWriter();
       w.rapid(0, 0, 5).rapid(980, 45, 5).feed(980, 45, -1, 600).arc(980, 95, -1, 980, 70, clockwise).retract();
-      return ofKind(analyze(w.build(), job(18, 'tape-glue', { machine: { ...machine, travel: { ...machine.travel, x: 1000 } } })), 'outside-travel');
+      return ofKind(analyze(w.build(), job(18, 'tape-glue', { machine: { ...machine, travelMm: { ...machine.travelMm, x: 1000 } } })), 'outside-travel');
     };
     const out = span(false);
     expect(out).toHaveLength(1);

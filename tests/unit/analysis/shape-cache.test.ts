@@ -39,10 +39,10 @@ function loopsOf(moves: MoveList, shapes: LoopShapes): LoopInfo[] {
   const s = resolveSettings(undefined);
   const bottom = -18, through = bottom + s.bottomToleranceMm;
   const checks = new ProgramChecks({ sheet: null, topZ: 0, bottomZ: bottom, spoilboardAllowanceMm: s.spoilboardAllowanceMm, toleranceMm: s.bottomToleranceMm, toolDiameter: () => 6.35 }, new FindingSink(25));
-  const scan = scanMoves(moves, { throughZ: through, bandTopZ: bottom + s.skinMaxMm, stockTopZ: 0, chainToleranceMm: s.chainToleranceMm, arcToleranceMm: s.arcToleranceMm, tabMaxLengthMm: s.tabMaxLengthMm }, checks);
+  const scan = scanMoves(moves, { throughZ: through, bandTopZ: bottom + s.skinMaxMm, stockTopZ: 0, chainToleranceMm: s.chainToleranceMm, chordToleranceMm: s.chordToleranceMm, tabMaxLengthMm: s.tabMaxLengthMm }, checks);
   const g = scan.graph!;
   g.zipOverlaps();
-  return extractLoops(g, prune(g)).map((l) => describeLoop(g, l, bottom, through, moves.line, s.arcToleranceMm, shapes));
+  return extractLoops(g, prune(g)).map((l) => describeLoop(g, l, bottom, through, moves.line, s.chordToleranceMm, shapes));
 }
 
 describe('shape memos', () => {

@@ -27,7 +27,7 @@ describe('estimate CLI with the through-cut checks', () => {
     for (const key of ['id', 'order', 'bbox', 'areaMm2', 'perimeterMm', 'holes', 'tabs', 'skinMm', 'held', 'holdBy', 'freedAtLine']) expect(part).toHaveProperty(key);
     // closed form: the outside tool path shrunk by the tool radius, (W − d)(H − d), minus the
     // hole's tool path grown by it, π(r + d/2)²; Clipper's round joins are within 0.5 %
-    const d = t1.diameter;
+    const d = t1.diameterMm;
     const want = (100 - d) * (60 - d) - Math.PI * (10 + d / 2) ** 2;
     expect(Math.abs(part.areaMm2 - want) / want).toBeLessThan(0.005);
     expect(part.holes).toBe(1);

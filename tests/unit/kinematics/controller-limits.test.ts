@@ -14,13 +14,13 @@ const run = (n: number, len: number, f: number) => {
 
 describe('block rate', () => {
   it('1000 blocks of 0.01 mm at 1000 blocks/s run at 10 mm/s: a 10 mm trapezoid, 1.02 s', () => {
-    const p = testProfile({ maxBlockRate: 1000, lookahead: 32 });
+    const p = testProfile({ maxBlocksPerS: 1000, lookaheadBlocks: 32 });
     const e = estimate(run(1000, 0.01, 6000), p);
     expect(e.totalSeconds).toBeCloseTo(restToRestDurationS(10, 10, 500), 9);
     expect(e.totalSeconds).toBeGreaterThanOrEqual(1000 / 1000);
   });
   it('unlimited block rate lets the same run reach F', () => {
-    const e = estimate(run(1000, 0.01, 6000), testProfile({ maxBlockRate: 0, lookahead: 0 }));
+    const e = estimate(run(1000, 0.01, 6000), testProfile({ maxBlocksPerS: 0, lookaheadBlocks: 0 }));
     expect(e.totalSeconds).toBeCloseTo(restToRestDurationS(10, 100, 500), 9);
   });
 });
@@ -29,7 +29,7 @@ describe('look-ahead', () => {
   it('N = 8 blocks of 1 mm: each block enters and leaves at √(2·500·7) (7 mm held ahead) and peaks at √(2·500·7.5)', () => {
     // Within a block the speed rises to v_peak = √(a·d + v²) = √(2·a·7.5) at its middle,
     // where 7.5 mm remain to the end of the blocks held: v² = 2·a·(distance held) everywhere.
-    const p = testProfile({ lookahead: 8 });
+    const p = testProfile({ lookaheadBlocks: 8 });
     const e = estimate(run(200, 1, 60000), p);
     const v = Math.sqrt(2 * 500 * 7);
     const vPeak = Math.sqrt(500 * 1 + v * v);
@@ -41,16 +41,16 @@ describe('look-ahead', () => {
     expect(e.cumulativeS[0]).toBeCloseTo((2 * 1) / Math.sqrt(2 * 500 * 1), 9);
   });
   it('a deeper look-ahead is never slower', () => {
-    const t = (n: number) => estimate(run(200, 1, 60000), testProfile({ lookahead: n })).totalSeconds;
+    const t = (n: number) => estimate(run(200, 1, 60000), testProfile({ lookaheadBlocks: n })).totalSeconds;
     expect(t(16)).toBeLessThan(t(8));
     expect(t(0)).toBeLessThan(t(16));
   });
   it('N = 1 stops at every block', () => {
-    const e = estimate(run(20, 1, 60000), testProfile({ lookahead: 1 }));
+    const e = estimate(run(20, 1, 60000), testProfile({ lookaheadBlocks: 1 }));
     expect(e.totalSeconds).toBeCloseTo(20 * restToRestDurationS(1, 1000, 500), 9);
   });
   it('unlimited look-ahead runs the straight run as one block', () => {
-    const e = estimate(run(200, 1, 60000), testProfile({ lookahead: 0 }));
+    const e = estimate(run(200, 1, 60000), testProfile({ lookaheadBlocks: 0 }));
     expect(e.totalSeconds).toBeCloseTo(restToRestDurationS(200, 1000, 500), 9);
   });
 });

@@ -54,7 +54,7 @@ describe('estimate CLI', () => {
 
     const parsed = parseMachineProfile(JSON.parse(readFileSync(profilePath, 'utf8')));
     if (!parsed.ok) throw new Error(parsed.message);
-    const result = interpret(program, { home: parsed.profile.home });
+    const result = interpret(program, { home: parsed.profile.homeMm });
     const sha256 = createHash('sha256').update(program).digest('hex');
     const job = { sheet: { widthMm: 2440, lengthMm: 1220, thicknessMm: 18 }, zero: 'table' as const, hold: 'vacuum' as const, vacuumKpa: 60 };
     const want = runEstimate(program, parsed.profile, job, { name: 'shelf-bracket.nc', sha256 }).report;
@@ -67,7 +67,7 @@ describe('estimate CLI', () => {
     expect(got).toEqual(want);
     expect(got.engine).toBe(ENGINE_VERSION);
     expect(got.programStops).toBe(1);
-    expect(got.breakdown.cutting).toBeGreaterThan(0); // Z 12 is below the top at Z 18
+    expect(got.breakdownSeconds.cutting).toBeGreaterThan(0); // Z 12 is below the top at Z 18
     expect(got.parts).toEqual([]);
     const { findings: _f, parts: _p, checks: _c, ...timingOnly } = got;
     const { findings: _wf, parts: _wp, ...wantTiming } = timing;
@@ -76,7 +76,7 @@ describe('estimate CLI', () => {
     for (const d of result.diagnostics) expect(got.findings).toContainEqual({ kind: d.code, severity: d.severity, line: d.line, message: d.message });
     // G5 is no G code of NISTIR 6556 Table 4: the interpreter's diagnostic becomes a finding
     expect(got.findings.some((f: { line: number; kind: string }) => f.line === 18 && f.kind.length > 0)).toBe(true);
-    const b = got.breakdown;
+    const b = got.breakdownSeconds;
     expect(b.cutting + b.air + b.rapid + b.plunge + b.dwell + b.toolChange + b.spindle).toBeCloseTo(got.totalSeconds, 4);
   });
 
@@ -97,13 +97,13 @@ describe('estimate CLI', () => {
 
   it('exits 2 with one line naming the field for a bad profile', () => {
     const bad = JSON.parse(readFileSync(path.join(root, 'fixtures/machines/router-2.json'), 'utf8'));
-    bad.accel.z = -5;
+    bad.accelMmPerS2.z = -5;
     const badPath = path.join(dir, 'bad-profile.json');
     writeFileSync(badPath, JSON.stringify(bad));
     const r = cli(file, '--machine', badPath, '--json');
     expect(r.status).toBe(2);
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
-    expect(r.stderr).toMatch(/accel\.z: must be greater than 0/);
+    expect(r.stderr).toMatch(/accelMmPerS2\.z: must be greater than 0/);
   });
 
   it('exits 2 for a profile that is not JSON and for bad arguments', () => {

@@ -11,13 +11,18 @@ describe('estimate report', () => {
 
   it('has the fields of the issue and a semver engine', () => {
     const r = buildEstimateReport({ file, estimate: e, diagnostics: [] });
-    expect(Object.keys(r)).toEqual(expect.arrayContaining(['engine', 'file', 'totalSeconds', 'calibratedSeconds', 'breakdown', 'programStops', 'moves', 'distance', 'tools', 'findings', 'parts']));
-    expect(Object.keys(r.breakdown).sort()).toEqual(['air', 'cutting', 'dwell', 'plunge', 'rapid', 'spindle', 'toolChange']);
+    // every key whose value has a unit names it (house style: totalSeconds, areaMm2)
+    expect(Object.keys(r).sort()).toEqual(
+      ['breakdownSeconds', 'calibratedSeconds', 'cuttingFeed', 'distanceMm', 'engine', 'file', 'findings', 'moves', 'parts', 'programStops', 'tools', 'totalSeconds'].sort(),
+    );
+    expect(Object.keys(r.cuttingFeed).sort()).toEqual(['achievedMmPerMin', 'commandedMmPerMin', 'lostShare']);
+    expect(Object.keys(r.distanceMm).sort()).toEqual(['feed', 'rapid']);
+    expect(Object.keys(r.breakdownSeconds).sort()).toEqual(['air', 'cutting', 'dwell', 'plunge', 'rapid', 'spindle', 'toolChange']);
     expect(r.engine).toBe(ENGINE_VERSION);
     expect(r.engine).toMatch(/^\d+\.\d+\.\d+$/); // semver.org §2
     expect(r.totalSeconds).toBeCloseTo(15 + 2.1, 6); // tool change + the 100 mm trapezoid
     expect(r.programStops).toBe(1);
-    expect(r.tools).toEqual([{ tool: 2, seconds: expect.closeTo(17.1, 6), feedDistance: 100 }]);
+    expect(r.tools).toEqual([{ tool: 2, seconds: expect.closeTo(17.1, 6), feedDistanceMm: 100 }]);
     expect(r.parts).toEqual([]);
   });
 

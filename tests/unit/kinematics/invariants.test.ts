@@ -25,18 +25,18 @@ const profileArb: fc.Arbitrary<MachineProfile> = fc
     az: fc.integer({ min: 100, max: 3000 }),
     fx: fc.integer({ min: 1000, max: 40000 }),
     fz: fc.integer({ min: 1000, max: 20000 }),
-    jd: fc.double({ min: 0.001, max: 0.1, noNaN: true }),
+    cornerTol: fc.double({ min: 0.001, max: 0.1, noNaN: true }),
     n: fc.integer({ min: 0, max: 40 }),
     rate: fc.constantFrom(0, 200, 1000, 5000),
   })
   .map((r) =>
     testProfile({
-      accel: { x: r.ax, y: r.ay, z: r.az },
-      maxFeed: { x: r.fx, y: r.fx, z: r.fz },
-      rapid: { x: r.fx * 1.5, y: r.fx * 1.5, z: r.fz * 1.5 },
-      junctionDeviation: r.jd,
-      lookahead: r.n,
-      maxBlockRate: r.rate,
+      accelMmPerS2: { x: r.ax, y: r.ay, z: r.az },
+      maxFeedMmPerMin: { x: r.fx, y: r.fx, z: r.fz },
+      rapidMmPerMin: { x: r.fx * 1.5, y: r.fx * 1.5, z: r.fz * 1.5 },
+      cornerToleranceMm: r.cornerTol,
+      lookaheadBlocks: r.n,
+      maxBlocksPerS: r.rate,
     }),
   );
 
@@ -68,8 +68,8 @@ describe('invariants (fast-check)', () => {
           const d = Math.hypot(s.x - px, s.y - py, s.z - pz);
           if (d > 1e-9) {
             const [ux, uy, uz] = [(s.x - px) / d, (s.y - py) / d, (s.z - pz) / d];
-            let v = s.kind === 'rapid' ? limitAlong(ux, uy, uz, p.rapid.x / 60, p.rapid.y / 60, p.rapid.z / 60) : Math.min(s.f / 60, limitAlong(ux, uy, uz, p.maxFeed.x / 60, p.maxFeed.y / 60, p.maxFeed.z / 60));
-            if (p.maxBlockRate > 0) v = Math.min(v, d * p.maxBlockRate);
+            let v = s.kind === 'rapid' ? limitAlong(ux, uy, uz, p.rapidMmPerMin.x / 60, p.rapidMmPerMin.y / 60, p.rapidMmPerMin.z / 60) : Math.min(s.f / 60, limitAlong(ux, uy, uz, p.maxFeedMmPerMin.x / 60, p.maxFeedMmPerMin.y / 60, p.maxFeedMmPerMin.z / 60));
+            if (p.maxBlocksPerS > 0) v = Math.min(v, d * p.maxBlocksPerS);
             bound += d / v;
             // as the planner (lib/kinematics/block-feed.ts, MIN_BLOCK_MM): a move under 1 nm is
             // no block, and the next one is measured from the last point that made one
@@ -86,12 +86,12 @@ describe('invariants (fast-check)', () => {
     fc.assert(
       fc.property(programArb, profileArb, fc.double({ min: 0.05, max: 1, noNaN: true }), fc.constantFrom('x', 'y', 'z') as fc.Arbitrary<'x' | 'y' | 'z'>, fc.integer({ min: 1, max: 40 }), fc.integer({ min: 50, max: 5000 }), (steps, p, k, axis, n, rate) => {
         const base = total(steps, p);
-        const slowerAccel = { ...p, accel: { ...p.accel, [axis]: p.accel[axis] * k } };
+        const slowerAccel = { ...p, accelMmPerS2: { ...p.accelMmPerS2, [axis]: p.accelMmPerS2[axis] * k } };
         expect(notLess(total(steps, slowerAccel), base)).toBe(true);
-        const lowerRate = p.maxBlockRate === 0 ? rate : Math.min(rate, p.maxBlockRate);
-        expect(notLess(total(steps, { ...p, maxBlockRate: lowerRate }), base)).toBe(true);
-        const shorter = p.lookahead === 0 ? n : Math.max(1, Math.min(n, p.lookahead - 1));
-        expect(notLess(total(steps, { ...p, lookahead: shorter }), base)).toBe(true);
+        const lowerRate = p.maxBlocksPerS === 0 ? rate : Math.min(rate, p.maxBlocksPerS);
+        expect(notLess(total(steps, { ...p, maxBlocksPerS: lowerRate }), base)).toBe(true);
+        const shorter = p.lookaheadBlocks === 0 ? n : Math.max(1, Math.min(n, p.lookaheadBlocks - 1));
+        expect(notLess(total(steps, { ...p, lookaheadBlocks: shorter }), base)).toBe(true);
       }),
       { numRuns: 150 },
     );
@@ -101,7 +101,7 @@ describe('invariants (fast-check)', () => {
     let checked = 0;
     fc.assert(
       fc.property(programArb, profileArb, fc.nat(39), fc.integer({ min: 2, max: 50 }), (steps, p0, at, pieces) => {
-        const p = { ...p0, lookahead: 0, maxBlockRate: 0 };
+        const p = { ...p0, lookaheadBlocks: 0, maxBlocksPerS: 0 };
         const i = at % steps.length;
         const s = steps[i];
         // only straight moves split; fc.pre draws another case instead of passing this one
@@ -131,7 +131,7 @@ describe('invariants (fast-check)', () => {
     fc.assert(
       fc.property(programArb, profileArb, fc.double({ min: -5, max: 20, noNaN: true }), (steps, p, top) => {
         const e = estimate(build(steps), p, { stockTopZ: top });
-        const b = e.breakdown;
+        const b = e.breakdownSeconds;
         const sum = b.cutting + b.air + b.rapid + b.plunge + b.dwell + b.toolChange + b.spindle;
         expect(sum).toBeCloseTo(e.totalSeconds, 9);
         expect(e.tools.reduce((s, t) => s + t.seconds, 0)).toBeCloseTo(e.totalSeconds, 9);

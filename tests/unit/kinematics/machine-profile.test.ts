@@ -6,8 +6,8 @@ import { describe, expect, it } from 'vitest';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
 
 interface Raw {
-  accel: Record<string, unknown>;
-  maxFeed: Record<string, unknown>;
+  accelMmPerS2: Record<string, unknown>;
+  maxFeedMmPerMin: Record<string, unknown>;
   tools: Record<string, unknown>[];
   [field: string]: unknown;
 }
@@ -21,18 +21,20 @@ describe('machine profile', () => {
   });
 
   it('the demo machines’ tables: Router 1 1530 × 3060 mm, Router 2 1250 × 2500 mm (CONVENTIONS.md)', () => {
-    const t1 = fixture('router-1.json').travel as { x: number; y: number };
-    const t2 = fixture('router-2.json').travel as { x: number; y: number };
+    const t1 = fixture('router-1.json').travelMm as { x: number; y: number };
+    const t2 = fixture('router-2.json').travelMm as { x: number; y: number };
     expect([t1.x, t1.y].sort()).toEqual([1530, 3060].sort());
     expect([t2.x, t2.y].sort()).toEqual([1250, 2500].sort());
   });
 
   it.each([
-    [(p: Raw) => { p.accel.y = 0; }, 'accel.y: must be greater than 0'],
-    [(p: Raw) => { delete p.maxFeed.z; }, 'maxFeed.z: is required'],
-    [(p: Raw) => { p.lookahead = 2.5; }, 'lookahead: must be a whole number'],
-    [(p: Raw) => { p.lookahead = -1; }, 'lookahead: must be 0 (unlimited) or more'],
-    [(p: Raw) => { p.junctionDeviation = 'small'; }, 'junctionDeviation: must be a number'],
+    [(p: Raw) => { p.accelMmPerS2.y = 0; }, 'accelMmPerS2.y: must be greater than 0'],
+    [(p: Raw) => { delete p.maxFeedMmPerMin.z; }, 'maxFeedMmPerMin.z: is required'],
+    [(p: Raw) => { p.lookaheadBlocks = 2.5; }, 'lookaheadBlocks: must be a whole number'],
+    [(p: Raw) => { p.lookaheadBlocks = -1; }, 'lookaheadBlocks: must be 0 (unlimited) or more'],
+    [(p: Raw) => { p.cornerToleranceMm = 'small'; }, 'cornerToleranceMm: must be a number'],
+    [(p: Raw) => { p.chordToleranceMm = 0; }, 'chordToleranceMm: must be greater than 0'],
+    [(p: Raw) => { p.tools[0].diameterMm = -3; }, 'tools[0].diameterMm: must be greater than 0'],
     [(p: Raw) => { p.tools[1].kind = 'spiral'; }, 'tools[1].kind: must be one of upcut, downcut, compression, straight, v, ball'],
     [(p: Raw) => { p.tools[1].number = p.tools[0].number; }, 'tools[1].number: tool 1 is listed twice'],
     [(p: Raw) => { p.timeFactor = 0; }, 'timeFactor: must be greater than 0'],
@@ -45,9 +47,16 @@ describe('machine profile', () => {
     if (!r.ok) expect(r.message).toBe(message);
   });
 
-  it('accepts lookahead 0 and maxBlockRate 0 (unlimited) and an empty tool list', () => {
-    const p = { ...fixture('router-2.json'), lookahead: 0, maxBlockRate: 0, tools: [] };
+  it('accepts lookaheadBlocks 0 and maxBlocksPerS 0 (unlimited) and an empty tool list', () => {
+    const p = { ...fixture('router-2.json'), lookaheadBlocks: 0, maxBlocksPerS: 0, tools: [] };
     expect(parseMachineProfile(p).ok).toBe(true);
+  });
+
+  it('a profile must use the names with units: one without travelMm is refused naming it', () => {
+    const { travelMm, ...rest } = fixture('router-1.json');
+    const r = parseMachineProfile({ ...rest, travel: travelMm });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.message).toMatch(/^travelMm: is required/);
   });
 
   it('rejects something that is not an object at all', () => {

@@ -13,9 +13,9 @@ describe('G-code programs', () => {
     const inch = run('G20 G90 G17\nG0 X1 Y1 Z0.2\nG1 Z-0.125 F30\nG1 X5 F120\nG3 X5 Y3 I0 J1\nG1 X1\nG0 Z1\nM30\n');
     const mm = run('G21 G90 G17\nG0 X25.4 Y25.4 Z5.08\nG1 Z-3.175 F762\nG1 X127 F3048\nG3 X127 Y76.2 I0 J25.4\nG1 X25.4\nG0 Z25.4\nM30\n');
     expect(inch.totalSeconds).toBeCloseTo(mm.totalSeconds, 4);
-    expect(inch.distance.feed).toBeCloseTo(mm.distance.feed, 3);
+    expect(inch.distanceMm.feed).toBeCloseTo(mm.distanceMm.feed, 3);
     // 4 in at 120 in/min is a 101.6 mm move at 50.8 mm/s; it takes at least d/F = 2 s
-    expect(inch.breakdown.cutting).toBeGreaterThan(2);
+    expect(inch.breakdownSeconds.cutting).toBeGreaterThan(2);
   });
 
   it('a single inch move: 10 in at F60 (25.4 mm/s) is the 254 mm trapezoid', () => {
@@ -34,21 +34,21 @@ describe('G-code programs', () => {
     // G18 (ZX): from X10 Z0 about the origin, G3 to X0 Z-10 is a quarter turn, G2 three quarters
     const g3 = run('G21 G90\nG1 X10 F600\nG18 G3 X0 Z-10 I-10 K0\n');
     const g2 = run('G21 G90\nG1 X10 F600\nG18 G2 X0 Z-10 I-10 K0\n');
-    expect(g3.distance.feed - 10).toBeCloseTo((Math.PI / 2) * 10, 6);
-    expect(g2.distance.feed - 10).toBeCloseTo(((3 * Math.PI) / 2) * 10, 6);
+    expect(g3.distanceMm.feed - 10).toBeCloseTo((Math.PI / 2) * 10, 6);
+    expect(g2.distanceMm.feed - 10).toBeCloseTo(((3 * Math.PI) / 2) * 10, 6);
     // G19 (YZ): from Y10 Z0 down to Y0 Z-10 about the origin: the first half of the quarter
     // arc runs steeper than 45° down (plunge), the second half shallower (cutting)
     const g19 = run('G21 G90\nG1 Y10 F600\nG19 G2 Y0 Z-10 J-10 K0\n');
-    expect(g19.distance.feed - 10).toBeCloseTo((Math.PI / 2) * 10, 6);
-    expect(g19.breakdown.plunge).toBeGreaterThan(0.4 * ((Math.PI / 2) * 10) / 10);
-    expect(g19.breakdown.cutting).toBeGreaterThan(0.4 * ((Math.PI / 2) * 10) / 10);
+    expect(g19.distanceMm.feed - 10).toBeCloseTo((Math.PI / 2) * 10, 6);
+    expect(g19.breakdownSeconds.plunge).toBeGreaterThan(0.4 * ((Math.PI / 2) * 10) / 10);
+    expect(g19.breakdownSeconds.cutting).toBeGreaterThan(0.4 * ((Math.PI / 2) * 10) / 10);
   });
 
   it('G4 P is seconds, M6 and M3 from stopped add their times', () => {
     const base = run('G21\nG1 X100 F3000\n');
     const e = run('G21\nM6 T2\nM3 S18000\nG1 X100 F3000\nG4 P1.25\nM5\n', { toolChangeSeconds: 20, spindleSpinUpSeconds: 4 });
     expect(e.totalSeconds - base.totalSeconds).toBeCloseTo(20 + 4 + 1.25, 6);
-    expect(e.tools.find((t) => t.tool === 2)?.feedDistance).toBeCloseTo(100, 6);
+    expect(e.tools.find((t) => t.tool === 2)?.feedDistanceMm).toBeCloseTo(100, 6);
   });
 
   it('G61 stops at every corner of a square; G64 blends', () => {

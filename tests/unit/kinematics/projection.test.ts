@@ -14,9 +14,9 @@ describe('per-axis projection', () => {
   });
 
   it('45° XY move: speed limited by maxFeed_x/|u_x|, acceleration by accel_x/|u_x|', () => {
-    // maxFeed x = y = 3000 mm/min (50 mm/s), accel 500: along 45° the path may run 50·√2
+    // maxFeedMmPerMin x = y = 3000 mm/min (50 mm/s), accel 500: along 45° the path may run 50·√2
     // mm/s and accelerate at 500·√2 mm/s²; F is far above.
-    const p = testProfile({ maxFeed: { x: 3000, y: 3000, z: 3000 } });
+    const p = testProfile({ maxFeedMmPerMin: { x: 3000, y: 3000, z: 3000 } });
     const d = 200;
     const m = new Moves().feed(d * Math.SQRT1_2, d * Math.SQRT1_2, 0, 20000).build();
     const v = 50 * Math.SQRT2;
@@ -27,7 +27,7 @@ describe('per-axis projection', () => {
   it('3-4-0 move with a slow Y axis: Y decides both limits', () => {
     // u = (0.6, 0.8, 0); Y: 1200 mm/min (20 mm/s) → 25 mm/s path; accel Y 200 → 250 path;
     // X limits (60000/60/0.6, 500/0.6) are looser.
-    const p = testProfile({ maxFeed: { x: 60000, y: 1200, z: 60000 }, accel: { x: 500, y: 200, z: 500 } });
+    const p = testProfile({ maxFeedMmPerMin: { x: 60000, y: 1200, z: 60000 }, accelMmPerS2: { x: 500, y: 200, z: 500 } });
     const m = new Moves().feed(30, 40, 0, 60000).build();
     expect(estimate(m, p).totalSeconds).toBeCloseTo(restToRestDurationS(50, 25, 250), 9);
   });
@@ -40,7 +40,7 @@ describe('per-axis projection', () => {
 
   it('a rapid with Z moving is held to Z’s rapid limit along its share', () => {
     // u = (0, 0.6, -0.8); rapid z 3000 mm/min = 50 mm/s → 62.5 mm/s path
-    const p = testProfile({ rapid: { x: 60000, y: 60000, z: 3000 } });
+    const p = testProfile({ rapidMmPerMin: { x: 60000, y: 60000, z: 3000 } });
     const m = new Moves().rapid(0, 60, -80).build();
     expect(estimate(m, p).totalSeconds).toBeCloseTo(restToRestDurationS(100, 62.5, 500 / 0.8), 9);
   });

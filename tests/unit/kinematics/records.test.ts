@@ -23,10 +23,10 @@ describe('timed records', () => {
   it('adds toolChangeSeconds, spindleSpinUpSeconds and the dwell exactly, and stops at each', () => {
     const e = estimate(program(), testProfile({ toolChangeSeconds: 15, spindleSpinUpSeconds: 3 }));
     expect(e.totalSeconds).toBeCloseTo(15 + 3 + t100 + 2.5 + t100, 9);
-    expect(e.breakdown.toolChange).toBe(15);
-    expect(e.breakdown.spindle).toBe(3);
-    expect(e.breakdown.dwell).toBe(2.5);
-    expect(e.breakdown.cutting).toBeCloseTo(2 * t100, 9);
+    expect(e.breakdownSeconds.toolChange).toBe(15);
+    expect(e.breakdownSeconds.spindle).toBe(3);
+    expect(e.breakdownSeconds.dwell).toBe(2.5);
+    expect(e.breakdownSeconds.cutting).toBeCloseTo(2 * t100, 9);
     expect(e.programStops).toBe(1);
   });
 
@@ -51,8 +51,8 @@ describe('timed records', () => {
     const m = new Moves().toolChange(1).feed(100, 0, 0, 3000).rapid(0, 0, 10).toolChange(2).feed(0, 0, 0, 3000).build();
     const e = estimate(m, testProfile({ toolChangeSeconds: 10 }));
     expect(e.tools.map((t) => t.tool)).toEqual([1, 2]);
-    expect(e.tools[0].feedDistance).toBeCloseTo(100, 9);
-    expect(e.tools[1].feedDistance).toBeCloseTo(10, 9);
+    expect(e.tools[0].feedDistanceMm).toBeCloseTo(100, 9);
+    expect(e.tools[1].feedDistanceMm).toBeCloseTo(10, 9);
     expect(e.tools[0].seconds + e.tools[1].seconds).toBeCloseTo(e.totalSeconds, 9);
     expect(e.tools[1].seconds).toBeCloseTo(10 + restToRestDurationS(10, 50, 500), 9); // change + a 10 mm plunge
   });
@@ -69,14 +69,14 @@ describe('breakdown by kind', () => {
       .build();
     const e = estimate(m, testProfile());
     const c = e.cumulativeS;
-    expect(e.breakdown.rapid).toBeCloseTo(c[0], 9);
-    expect(e.breakdown.air).toBeCloseTo(c[1] - c[0], 9);
-    expect(e.breakdown.plunge).toBeCloseTo(c[2] - c[1], 9);
-    expect(e.breakdown.cutting).toBeCloseTo(c[4] - c[2], 9);
-    const b = e.breakdown;
+    expect(e.breakdownSeconds.rapid).toBeCloseTo(c[0], 9);
+    expect(e.breakdownSeconds.air).toBeCloseTo(c[1] - c[0], 9);
+    expect(e.breakdownSeconds.plunge).toBeCloseTo(c[2] - c[1], 9);
+    expect(e.breakdownSeconds.cutting).toBeCloseTo(c[4] - c[2], 9);
+    const b = e.breakdownSeconds;
     expect(b.cutting + b.air + b.rapid + b.plunge + b.dwell + b.toolChange + b.spindle).toBeCloseTo(e.totalSeconds, 9);
-    expect(e.distance.rapid).toBeCloseTo(8, 9);
-    expect(e.distance.feed).toBeCloseTo(50 + 5 + 50 + Math.hypot(50, 2), 9);
+    expect(e.distanceMm.rapid).toBeCloseTo(8, 9);
+    expect(e.distanceMm.feed).toBeCloseTo(50 + 5 + 50 + Math.hypot(50, 2), 9);
   });
 
   it('with Z zero on the table the stock top is the sheet thickness', () => {
@@ -84,8 +84,8 @@ describe('breakdown by kind', () => {
     expect(stockTopZ('top', 18)).toBe(0);
     expect(stockTopZ('table', null)).toBe(0);
     const m = new Moves({ x: 0, y: 0, z: 10 }).feed(100, 0, 10, 3000).build();
-    expect(estimate(m, testProfile(), { stockTopZ: 18 }).breakdown.cutting).toBeCloseTo(t100, 9);
-    expect(estimate(m, testProfile()).breakdown.air).toBeCloseTo(t100, 9);
+    expect(estimate(m, testProfile(), { stockTopZ: 18 }).breakdownSeconds.cutting).toBeCloseTo(t100, 9);
+    expect(estimate(m, testProfile()).breakdownSeconds.air).toBeCloseTo(t100, 9);
   });
 
   it('achieved vs commanded feed of cutting moves: the share lost to acceleration', () => {

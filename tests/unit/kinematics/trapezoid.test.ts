@@ -1,6 +1,6 @@
 // Trapezoidal profiles: closed forms of L. Biagiotti, C. Melchiorri, Trajectory Planning for
 // Automatic Machines and Robots, Springer 2008, §3.2.2 (from memory); check values computed in
-// REFERENCES.md (v = 50 mm/s, a = 500 mm/s²).
+// docs/references.md (v = 50 mm/s, a = 500 mm/s²).
 import { describe, expect, it } from 'vitest';
 import { blockDurationS, estimate, restToRestDurationS } from '@/lib/kinematics';
 import { Moves, testProfile } from './support/moves';
@@ -45,6 +45,6 @@ describe('the estimator reproduces them on single moves', () => {
   it('a rapid runs at the rapid limit of its axis', () => {
     // rapid X 6000 mm/min = 100 mm/s, a = 500: d = 300 → 3 + 0.2 s
     const m = new Moves().rapid(300, 0, 0).build();
-    expect(estimate(m, testProfile({ rapid: { x: 6000, y: 60000, z: 60000 } })).totalSeconds).toBeCloseTo(3.2, 9);
+    expect(estimate(m, testProfile({ rapidMmPerMin: { x: 6000, y: 60000, z: 60000 } })).totalSeconds).toBeCloseTo(3.2, 9);
   });
 });

@@ -2,10 +2,10 @@
 import type { AnalysisInput, HoldDownMethod } from '@/lib/analysis';
 
 export const TOOLS = [
-  { number: 1, diameter: 6.35, flutes: 2, kind: 'compression' },
-  { number: 2, diameter: 3.175, flutes: 1, kind: 'up-cut' },
-  { number: 3, diameter: 6, flutes: 2, kind: 'down-cut' },
-  { number: 9, diameter: 0, flutes: 1, kind: 'straight' }, // a zero-width "tool": parts equal the tool-path loops
+  { number: 1, diameterMm: 6.35, flutes: 2, kind: 'compression' },
+  { number: 2, diameterMm: 3.175, flutes: 1, kind: 'up-cut' },
+  { number: 3, diameterMm: 6, flutes: 2, kind: 'down-cut' },
+  { number: 9, diameterMm: 0, flutes: 1, kind: 'straight' }, // a zero-width "tool": parts equal the tool-path loops
 ];
 
 export function job(thicknessMm: number, holdDown: HoldDownMethod = 'tape-glue', extra: Partial<AnalysisInput> = {}): AnalysisInput {
