@@ -1,6 +1,14 @@
 // Next.js configuration. authInterrupts enables forbidden() so a page a role may not
 // see answers with a real 403 and app/forbidden.tsx, rather than a redirect or a
 // blank screen. Source maps in production help the shop read its own stack traces.
+//
+// headers(): the security headers of lib/http/security-headers.mjs on every response,
+// static files and API JSON included (proxy.ts does not run for those). Pages get the
+// same policy again from proxy.ts, with the request's nonce; a header set there
+// replaces the one set here. Next.js reads headers() at build time, so HSTS on static
+// files follows the APP_URL the build saw; pages follow the running server's APP_URL.
+import { isHttpsUrl, securityHeaders } from './lib/http/security-headers.mjs';
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
@@ -11,6 +19,10 @@ const nextConfig = {
   // Native MariaDB driver and bcrypt stay as Node modules on the server, and so does the
   // analysis's Clipper build, which finds and instantiates its WebAssembly at run time.
   serverExternalPackages: ['mysql2', 'bcryptjs', 'js-angusj-clipper'],
+  async headers() {
+    const headers = securityHeaders({ https: isHttpsUrl(process.env.APP_URL), dev: process.env.NODE_ENV === 'development' });
+    return [{ source: '/:path*', headers: headers.map(([key, value]) => ({ key, value })) }];
+  },
 };
 
 export default nextConfig;

@@ -7,7 +7,7 @@
 // secret below is used only when NODE_ENV !== 'production' or when KERFCAST_LOCAL=1
 // (set by scripts/start.sh and scripts/test.sh, which build and serve in production
 // mode on loopback). A production server without AUTH_SECRET refuses to start.
-import { z } from 'zod';
+import { z } from '@/lib/validation/zod';
 
 const DEV_AUTH_SECRET = 'kerfcast-local-development-secret-do-not-deploy';
 
@@ -50,6 +50,8 @@ const schemaFor = (p: z.infer<typeof portsSchema>) => z.object({
   MAIL_CAPTURE_URL: url(['http:', 'https:']).default(`http://127.0.0.1:${p.KERFCAST_MAIL_HTTP_PORT}`),
   APP_URL: url(['http:', 'https:']).default('http://127.0.0.1:3000'),
   AUTH_SECRET: z.string().min(16, 'must be at least 16 characters').optional(),
+  /** largest JSON request body a route handler reads; more answers 413 (lib/http/route.ts) */
+  JSON_BODY_LIMIT_BYTES: z.coerce.number().int().min(1024).max(64 * 1024 * 1024).default(1024 * 1024),
 });
 
 export type Env = Omit<z.infer<ReturnType<typeof schemaFor>>, 'AUTH_SECRET' | 'S3_FORCE_PATH_STYLE'> & {

@@ -1,6 +1,6 @@
 // Customer input, shared by the create-customer form, its server action and the
 // /api/customers route handlers.
-import { z } from 'zod';
+import { z } from '@/lib/validation/zod';
 import { emailSchema } from './users';
 
 // Without defaults, so that the partial update schema does not invent a change.

@@ -1,7 +1,7 @@
 // Glue between zod and the places input arrives: FormData from forms and server
 // actions, JSON bodies in route handlers. Issues become { field: [messages] } so
 // that a form can show each message beside its field and a route can answer 422.
-import { z } from 'zod';
+import { z } from '@/lib/validation/zod';
 import { AppError, type FieldErrors } from '@/lib/errors';
 
 export function fieldErrors(error: z.ZodError): FieldErrors {
@@ -27,7 +27,7 @@ export function formDataToObject(form: FormData): Record<string, string | undefi
 export function parseOrThrow<T extends z.ZodType>(schema: T, input: unknown, what: string): z.output<T> {
   const result = schema.safeParse(input);
   if (!result.success) {
-    throw new AppError(`invalid:${what}`, `Some ${what} fields are not right.`, fieldErrors(result.error));
+    throw new AppError(`invalid:${what}`, `Some of the ${what} details need fixing: each one is named at its field.`, fieldErrors(result.error));
   }
   return result.data;
 }

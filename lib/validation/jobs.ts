@@ -1,7 +1,7 @@
 // Job input: the sheet, where Z zero is, the hold-down method and the quantity.
 // Lengths in mm. Vacuum level in kPa below atmosphere, so it cannot exceed one
 // standard atmosphere, 101.325 kPa (NIST SP 811, 2008, Appendix B).
-import { z } from 'zod';
+import { z } from '@/lib/validation/zod';
 import { HOLD_DOWNS, JOB_STATUSES, Z_ZEROS } from './enums';
 
 const ATMOSPHERE_KPA = 101.325;

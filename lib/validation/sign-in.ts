@@ -1,6 +1,6 @@
 // Sign-in form input. Deliberately loose on the password (only non-empty): the
 // rules for a new password live in users.ts, and a sign-in must not hint at them.
-import { z } from 'zod';
+import { z } from '@/lib/validation/zod';
 
 export const signInSchema = z.object({
   email: z.string({ error: 'Enter your e-mail.' }).trim().toLowerCase().min(1, 'Enter your e-mail.').pipe(z.email('Enter an e-mail like name@example.com.')),

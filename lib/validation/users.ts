@@ -1,6 +1,6 @@
 // User administration input: creating a user, changing a role, disabling and
 // enabling. Shared by the admin page's forms, its server actions and /api/users.
-import { z } from 'zod';
+import { z } from '@/lib/validation/zod';
 import { ROLES } from './enums';
 
 // bcrypt reads only the first 72 bytes of a password (OpenBSD bcrypt(3)); a longer
