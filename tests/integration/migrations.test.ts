@@ -55,7 +55,9 @@ describe('migrations on an empty database', () => {
   it('creates exactly the tables of db/schema.ts plus the migration log', async () => {
     const [rows] = await conn.query('SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE()');
     const names = (rows as { name: string }[]).map((r) => r.name).sort();
-    expect(tables.length).toBe(8);
+    // shops, users, machines, machine_versions, tools, materials, customers, jobs,
+    // programs, program_versions, estimates, job_events
+    expect(tables.length).toBe(12);
     expect(names).toEqual([...tables.map((t) => t.name), '__drizzle_migrations'].sort());
   });
 
