@@ -1,7 +1,9 @@
 // Kerfcast's look for the shop floor (reasons in docs/style.md): a warm light ground,
-// near-black ink, one deep teal for actions, and four status tones that are always
-// paired with a word and a shape, never used as the only signal. The type scale
-// starts at 18 px so a table is readable at arm's length from the machine.
+// near-black ink, one deep teal for actions, and four message tones of our own (a
+// blue, a slate, a violet and a raspberry, deliberately not a green/amber/red set)
+// that are always paired with a word and a shape, never used as the only signal. The
+// type scale starts at 18 px so a table is readable at arm's length from the machine.
+// tests/unit/style/palette-contrast.test.ts checks the pairings the pages use.
 import type { Config } from 'tailwindcss';
 
 const config: Config = {
@@ -11,21 +13,24 @@ const config: Config = {
       transparent: 'transparent',
       current: 'currentColor',
       white: '#ffffff',
-      // ground and text: ink on ground 16.2:1, soft 9.1:1, faint 5.5:1 (WCAG 2.2 formula, computed)
+      // ground and text: ink on ground 16.2:1, soft 9.1:1, faint 5.5:1 (WCAG 2.1 formula, computed)
       ground: '#f6f4ef',
       panel: '#ffffff',
       ink: { DEFAULT: '#15181c', soft: '#3d434b', faint: '#5c636c' },
-      // borders must reach 3:1 against ground (WCAG 2.2 SC 1.4.11): rule is 3.8:1 (computed)
+      // control borders reach 3:1 against ground and panel (WCAG 2.1 SC 1.4.11): rule is
+      // 3.8:1 and 4.2:1; rule-light is for dividers that carry no meaning
       rule: { DEFAULT: '#767d86', light: '#c9ccd1' },
-      // the one action colour: white on spruce is 8.0:1 (computed)
+      // the one action colour (buttons, the current page): white on spruce is 8.0:1.
+      // Statuses and messages never use it.
       spruce: { DEFAULT: '#0b5a57', dark: '#073f3d', light: '#d7ecea' },
-      // status tones as text on their own tint: 5.5 to 6.7:1 (computed), above 4.5:1
-      go: { DEFAULT: '#1d6a2c', tint: '#dcefdc' },
-      hold: { DEFAULT: '#7a4d00', tint: '#fbeccb' },
-      stop: { DEFAULT: '#a1171b', tint: '#f8dcdc' },
-      info: { DEFAULT: '#1c4a9c', tint: '#dde6f6' },
-      // dark surfaces (navigation bar, later the 3D viewer background)
-      night: { DEFAULT: '#1b2026', raised: '#262d35', line: '#4a535e' },
+      // message and status tones, as text on their own tint 6.1 to 6.7:1, on panel 7.7 to 8.3:1
+      ok: { DEFAULT: '#1f4f8a', tint: '#dfe8f5' },
+      note: { DEFAULT: '#46505c', tint: '#e7e9ec' },
+      caution: { DEFAULT: '#6a3590', tint: '#efe3f6' },
+      fault: { DEFAULT: '#a3123f', tint: '#f9dde6' },
+      // dark surfaces (navigation bar, table heads, later the 3D viewer background);
+      // edge is the border of a control on them: 5.3:1 on night, 4.5:1 on raised
+      night: { DEFAULT: '#1b2026', raised: '#262d35', line: '#4a535e', edge: '#8a939e' },
     },
     fontFamily: {
       sans: ['var(--font-text)', 'system-ui', 'sans-serif'],

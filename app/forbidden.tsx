@@ -4,7 +4,7 @@ import { StatusPage } from '@/components/ui/status-page';
 
 export default function Forbidden() {
   return (
-    <StatusPage code="403" codeClass="text-stop" title="This page is not open to your role" testId="forbidden-page">
+    <StatusPage code="403" codeClass="text-fault" title="This page is not open to your role" testId="forbidden-page">
       Your account can sign in, but its role does not include this page. Ask your shop&apos;s admin if you need it.
     </StatusPage>
   );

@@ -46,7 +46,7 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
             shopId,
             machineId: row.id,
             number: t.number,
-            diameterMm: t.diameter,
+            diameterMm: t.diameterMm,
             flutes: t.flutes,
             kind: t.kind,
             description: m.toolDescriptions[t.number] ?? '',

@@ -10,6 +10,8 @@ const STATUS_BY_KIND = {
   forbidden: 403,
   'not-found': 404,
   conflict: 409,
+  /** a request body over its size limit (lib/http/route.ts readJson) */
+  'too-large': 413,
   invalid: 422,
   'rate-limited': 429,
   internal: 500,

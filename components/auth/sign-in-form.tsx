@@ -50,7 +50,7 @@ export function SignInForm({ callbackPath, initialError }: { callbackPath: strin
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5" aria-label="Sign in">
       {error ? (
         <div ref={errorRef} tabIndex={-1} data-testid="sign-in-error">
-          <Notice tone="stop" title={error} role="alert" />
+          <Notice tone="fault" title={error} role="alert" />
         </div>
       ) : null}
       <InputField id="email" label="E-mail" type="email" autoComplete="username" autoFocus required errors={fields.email} />

@@ -60,7 +60,7 @@ export function JobsList() {
 
   if (error) {
     return (
-      <Notice tone="stop" title="The jobs could not be loaded." role="alert">
+      <Notice tone="fault" title="The jobs could not be loaded." role="alert">
         <p>{error.message}</p>
         <Button variant="secondary" className="mt-3" onClick={() => mutate()}>
           Try again
@@ -77,7 +77,7 @@ export function JobsList() {
     );
   }
   if (data.jobs.length === 0) {
-    return <Notice tone="info" title="No jobs yet." role="status">A new job appears here as soon as it is created.</Notice>;
+    return <Notice tone="note" title="No jobs yet." role="status">A new job appears here as soon as it is created.</Notice>;
   }
-  return <DataTable caption="Jobs of your shop" columns={columns} rows={data.jobs} rowKey={(j) => j.id} />;
+  return <DataTable caption="Your shop's jobs" columns={columns} rows={data.jobs} rowKey={(j) => j.id} />;
 }

@@ -7,7 +7,7 @@ type Variant = 'primary' | 'secondary' | 'danger';
 const STYLES: Record<Variant, string> = {
   primary: 'bg-spruce text-white border-spruce hover:bg-spruce-dark',
   secondary: 'bg-panel text-ink border-rule hover:bg-ground',
-  danger: 'bg-panel text-stop border-stop hover:bg-stop-tint',
+  danger: 'bg-panel text-fault border-fault hover:bg-fault-tint',
 };
 
 export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {

@@ -1,6 +1,6 @@
 // A labelled form field with its error messages tied to it (aria-describedby,
 // aria-invalid), so a screen reader and a sighted user both learn what is wrong.
-// An error is shown as text with a marker, never by a red border alone.
+// An error is shown as text with a marker, never by a coloured border alone.
 import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from 'react';
 
 interface FieldShellProps {
@@ -24,7 +24,7 @@ export function FieldShell({ id, label, hint, errors, children }: FieldShellProp
       ) : null}
       {children}
       {errors && errors.length > 0 ? (
-        <ul id={`${id}-error`} className="text-sm font-bold text-stop" aria-live="polite">
+        <ul id={`${id}-error`} className="text-sm font-bold text-fault" aria-live="polite">
           {errors.map((message) => (
             <li key={message}>
               <span aria-hidden="true">▲ </span>
@@ -38,7 +38,7 @@ export function FieldShell({ id, label, hint, errors, children }: FieldShellProp
 }
 
 const controlClass =
-  'min-h-target rounded-md border-2 border-rule bg-panel px-3 text-base text-ink aria-[invalid=true]:border-stop aria-[invalid=true]:border-3';
+  'min-h-target rounded-md border-2 border-rule bg-panel px-3 text-base text-ink aria-[invalid=true]:border-fault aria-[invalid=true]:border-3';
 
 function describedBy(id: string, hint?: string, errors?: string[]) {
   const ids = [hint ? `${id}-hint` : '', errors?.length ? `${id}-error` : ''].filter(Boolean);

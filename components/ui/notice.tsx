@@ -2,13 +2,14 @@
 // the meaning, the colour only repeats it.
 import type { ReactNode } from 'react';
 
-type Tone = 'info' | 'go' | 'hold' | 'stop';
+export type Tone = 'note' | 'ok' | 'caution' | 'fault';
 
+// The screen-reader label says what kind of message it is, as the glyph does for the eye.
 const TONES: Record<Tone, { box: string; glyph: string; label: string }> = {
-  info: { box: 'border-info bg-info-tint text-info', glyph: 'i', label: 'Note' },
-  go: { box: 'border-go bg-go-tint text-go', glyph: '✓', label: 'Done' },
-  hold: { box: 'border-hold bg-hold-tint text-hold', glyph: '!', label: 'Attention' },
-  stop: { box: 'border-stop bg-stop-tint text-stop', glyph: '✕', label: 'Problem' },
+  note: { box: 'border-note bg-note-tint text-note', glyph: 'i', label: 'Note' },
+  ok: { box: 'border-ok bg-ok-tint text-ok', glyph: '✓', label: 'Success' },
+  caution: { box: 'border-caution bg-caution-tint text-caution', glyph: '!', label: 'Caution' },
+  fault: { box: 'border-fault bg-fault-tint text-fault', glyph: '✕', label: 'Problem' },
 };
 
 export function Notice({ tone, title, children, role }: { tone: Tone; title: string; children?: ReactNode; role?: 'alert' | 'status' }) {
@@ -31,7 +32,7 @@ export function Notice({ tone, title, children, role }: { tone: Tone; title: str
 
 /** The outcome of a form's server action, as the form shows it: a status when saved, an alert when not. */
 export function ActionNotice({ state }: { state: { status: string; message?: string } }) {
-  if (state.status === 'ok') return <Notice tone="go" title={state.message ?? 'Saved.'} role="status" />;
-  if (state.status === 'error') return <Notice tone="stop" title={state.message ?? 'Not saved.'} role="alert" />;
+  if (state.status === 'ok') return <Notice tone="ok" title={state.message ?? 'Saved.'} role="status" />;
+  if (state.status === 'error') return <Notice tone="fault" title={state.message ?? 'Not saved.'} role="alert" />;
   return null;
 }

@@ -3,7 +3,7 @@
 // zod schema, show field issues at once, and only then run the server action (which
 // validates again). Field issues from the server replace the local ones.
 import { useActionState, useEffect, useRef, useState, startTransition, type FormEvent } from 'react';
-import type { z } from 'zod';
+import type { z } from '@/lib/validation/zod';
 import type { FieldErrors } from '@/lib/errors';
 import { IDLE, type ActionState } from '@/lib/http/action-state';
 import { fieldErrors, formDataToObject } from '@/lib/validation/form';

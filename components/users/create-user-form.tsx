@@ -22,10 +22,10 @@ export function CreateUserForm({ action }: { action: Action }) {
       <InputField
         id="user-password"
         name="password"
-        label="First password"
+        label="Their password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. Give it to the person directly."
+        hint="At least 10 characters. Tell it to them yourself rather than by e-mail."
         required
         errors={fields.password}
       />

@@ -19,7 +19,7 @@ function Feedback({ state }: { state: ActionState }) {
   if (state.status === 'idle') return null;
   const text = state.fields ? Object.values(state.fields).flat()[0] ?? state.message : state.message;
   return (
-    <p role={state.status === 'error' ? 'alert' : 'status'} className={`text-sm font-bold ${state.status === 'error' ? 'text-stop' : 'text-go'}`}>
+    <p role={state.status === 'error' ? 'alert' : 'status'} className={`text-sm font-bold ${state.status === 'error' ? 'text-fault' : 'text-ok'}`}>
       <span aria-hidden="true">{state.status === 'error' ? '▲ ' : '✓ '}</span>
       {text}
     </p>
@@ -29,7 +29,7 @@ function Feedback({ state }: { state: ActionState }) {
 export function UserRowControls({ user, isSelf, changeRole, setDisabled }: Props) {
   const [roleState, roleAction, rolePending] = useActionState(changeRole, IDLE);
   const [disabledState, disabledAction, disabledPending] = useActionState(setDisabled, IDLE);
-  if (isSelf) return <p className="text-sm text-ink-soft">This is you: another admin changes your role.</p>;
+  if (isSelf) return <p className="text-sm text-ink-soft">Your own account: only another admin can change its role or disable it.</p>;
   return (
     <div className="flex flex-col gap-2">
       <div className="flex flex-wrap items-center gap-2">

@@ -1,6 +1,7 @@
 // Browser test of the forms: zod checks in the page before sending, the server
 // action's own check shown as a field error, success shown and the list refreshed;
-// an admin creates and disables a user, who then cannot sign in.
+// an admin creates a user, changes their role and disables them, and they then cannot
+// sign in.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { DEMO_PASSWORD, E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
@@ -81,20 +82,22 @@ describe('users (admin)', () => {
     const users = new UsersPage(page, server.baseUrl);
     await users.open();
     await users.create({ ...NEW_USER, password: 'short' });
-    expect(await users.fieldError('First password')).toBe('Use at least 10 characters.');
+    expect(await users.fieldError('Their password')).toBe('Use at least 10 characters.');
     // Only the server knows the e-mail is taken: its answer comes back as a field error.
     await users.create({ ...NEW_USER, email: 'priya@alder-finch.example' });
     expect(await users.fieldError('E-mail')).toBe('This e-mail is already in use.');
     await page.close();
   });
 
-  it('creates a user, disables them, and the disabled user cannot sign in', async () => {
+  it('creates a user, changes their role, disables them, and the disabled user cannot sign in', async () => {
     const page = await signedInPage('ada@alder-finch.example');
     const users = new UsersPage(page, server.baseUrl);
     await users.open();
     await users.create(NEW_USER);
     expect(await users.statusMessage()).toBe(`${NEW_USER.name} can now sign in as ${NEW_USER.email}.`);
     expect(await users.signInState(NEW_USER.email)).toContain('Enabled');
+    // the role is named as a person would say it, with its label, not its code
+    expect(await users.changeRole(NEW_USER.email, 'Estimator')).toBe(`${NEW_USER.name} is now an estimator.`);
     await users.toggleDisabled(NEW_USER.email, 'Disabled');
     expect(await users.signInState(NEW_USER.email)).toContain('Disabled');
     await page.close();
@@ -104,7 +107,7 @@ describe('users (admin)', () => {
     const signIn = new SignInPage(visitor, server.baseUrl);
     await signIn.open();
     await signIn.signIn(NEW_USER.email, NEW_USER.password);
-    expect(await signIn.errorText()).toBe('E-mail or password is not right.');
+    expect(await signIn.errorText()).toBe('Wrong e-mail or password. Check both and try again.');
     await visitor.close();
   });
 });

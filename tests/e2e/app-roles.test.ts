@@ -77,7 +77,7 @@ describe('sign-in failures', () => {
     const signIn = new SignInPage(page, server.baseUrl);
     await signIn.open();
     await signIn.signIn('tomas@alder-finch.example', 'not-the-password');
-    expect(await signIn.errorText()).toBe('E-mail or password is not right.');
+    expect(await signIn.errorText()).toBe('Wrong e-mail or password. Check both and try again.');
     expect(await signIn.isFocusedOnError()).toBe(true);
     expect(new URL(page.url()).pathname).toBe('/sign-in');
     await page.close();
@@ -121,7 +121,7 @@ describe('look', () => {
     expect(bodyFont).toMatch(/textFont|Atkinson/i);
     // Status is written out as a word, not shown by colour alone.
     const statuses = await jobs.statusTexts();
-    for (const s of statuses) expect(s).toMatch(/Draft|Programmed|Quoted|Accepted|Running|Done|Cancelled/);
+    for (const s of statuses) expect(s).toMatch(/^(Draft|Programmed|Quoted|Accepted|Scheduled|Running|Done|Cancelled)$/);
     mkdirSync(SCREENSHOT_DIR, { recursive: true });
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'jobs.png'), fullPage: true });
     await page.close();

@@ -66,7 +66,7 @@ describe('sign-in', () => {
     await addUser(DISABLED, true);
     const result = await signInOverHttp(DISABLED, DEMO_PASSWORD);
     expect(result.signedIn).toBe(false);
-    expect(errorOf(result.url)).toBe('E-mail or password is not right.');
+    expect(errorOf(result.url)).toBe('Wrong e-mail or password. Check both and try again.');
   });
 
   it('an unknown e-mail and a wrong password get the same answer', async () => {
@@ -75,7 +75,7 @@ describe('sign-in', () => {
     expect(unknown.signedIn).toBe(false);
     expect(wrong.signedIn).toBe(false);
     expect(errorOf(unknown.url)).toBe(errorOf(wrong.url));
-    expect(errorOf(unknown.url)).toBe('E-mail or password is not right.');
+    expect(errorOf(unknown.url)).toBe('Wrong e-mail or password. Check both and try again.');
   });
 
   it('after 5 failures for one e-mail, even the right password is refused for a while', async () => {

@@ -20,10 +20,10 @@ export default async function CustomersPage() {
       <div className="grid items-start gap-8 lg:grid-cols-[2fr_1fr]">
         <section aria-label="Customer list">
           {customers.length === 0 ? (
-            <Notice tone="info" title="No customers yet." role="status">Add the first one with the form.</Notice>
+            <Notice tone="note" title="No customers yet." role="status">Add the first one with the form.</Notice>
           ) : (
             <DataTable
-              caption="Customers of your shop"
+              caption="Your shop's customers"
               rows={customers}
               rowKey={(c) => c.id}
               columns={[

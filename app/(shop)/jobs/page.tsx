@@ -10,7 +10,7 @@ export default async function JobsPage() {
   await guardPage('jobs');
   return (
     <>
-      <PageHeader title="Jobs" lead="Every job of your shop, the most recently changed first." />
+      <PageHeader title="Jobs" lead="All your shop's jobs, with the latest changes at the top." />
       <JobsList />
     </>
   );

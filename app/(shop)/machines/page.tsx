@@ -4,6 +4,7 @@ import { DataTable } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
 import { PageHeader } from '@/components/ui/page-header';
 import { listMachines } from '@/db/queries/machines';
+import { whoMay } from '@/lib/auth/messages';
 import { guardPage } from '@/lib/auth/page-guard';
 import { HOLD_DOWN_LABELS } from '@/lib/validation/enums';
 
@@ -16,7 +17,7 @@ export default async function MachinesPage() {
     <>
       <PageHeader title="Machines" lead="Machine profiles the estimates are computed for." />
       {machines.length === 0 ? (
-        <Notice tone="info" title="No machines yet." role="status">An admin adds machine profiles.</Notice>
+        <Notice tone="note" title="No machines yet." role="status">{`${whoMay('machines:write', true)} can add a machine profile.`}</Notice>
       ) : (
         <DataTable
           caption="Machines of your shop"

@@ -23,7 +23,7 @@ export class CustomersPage extends FormPage {
   }
 
   async names(): Promise<string[]> {
-    const cells = this.page.getByRole('table', { name: 'Customers of your shop' }).locator('tbody tr td:first-child');
+    const cells = this.page.getByRole('table', { name: "Your shop's customers" }).locator('tbody tr td:first-child');
     return (await cells.allInnerTexts()).map((t) => t.trim());
   }
 }

@@ -10,13 +10,13 @@ export class JobsPage {
 
   /** Waits until the table replaced the loading state, then returns the job titles. */
   async titles(): Promise<string[]> {
-    const rows = this.page.getByRole('table', { name: 'Jobs of your shop' }).locator('tbody tr');
+    const rows = this.page.getByRole('table', { name: "Your shop's jobs" }).locator('tbody tr');
     await rows.first().waitFor();
     return (await rows.locator('td:first-child').allInnerTexts()).map((t) => t.trim());
   }
 
   async statusTexts(): Promise<string[]> {
-    const cells = this.page.getByRole('table', { name: 'Jobs of your shop' }).locator('tbody tr td:last-child');
+    const cells = this.page.getByRole('table', { name: "Your shop's jobs" }).locator('tbody tr td:last-child');
     return (await cells.allInnerTexts()).map((t) => t.trim());
   }
 }

@@ -17,7 +17,7 @@ describe('fetcher', () => {
   });
 
   it('rebuilds the typed error from the error body', async () => {
-    answer(422, { error: { code: 'invalid:customer', message: 'Some customer fields are not right.', fields: { email: ['Enter an e-mail.'] } } });
+    answer(422, { error: { code: 'invalid:customer', message: 'Some of the customer details need fixing: each one is named at its field.', fields: { email: ['Enter an e-mail.'] } } });
     const error = await fetcher('/api/customers').catch((e: unknown) => e);
     expect(error).toBeInstanceOf(AppError);
     expect(error).toMatchObject({ code: 'invalid:customer', status: 422, fields: { email: ['Enter an e-mail.'] } });

@@ -6,6 +6,7 @@ import { changeUserRole, createUser, setUserDisabled } from '@/db/queries/users'
 import { requireAction } from '@/lib/auth/require-role';
 import { runAction, type ActionState } from '@/lib/http/action-state';
 import { formDataToObject, parseOrThrow } from '@/lib/validation/form';
+import { ROLE_IN_SENTENCE } from '@/lib/validation/enums';
 import { parseId } from '@/lib/validation/ids';
 import { changeRoleSchema, createUserSchema, setDisabledSchema } from '@/lib/validation/users';
 
@@ -26,7 +27,7 @@ export async function changeRoleAction(_previous: ActionState, form: FormData): 
     const { role } = parseOrThrow(changeRoleSchema, formDataToObject(form), 'user');
     const user = await changeUserRole(admin.shopId, admin.id, userId, role);
     revalidatePath('/admin/users');
-    return `${user.name} is now ${role}.`;
+    return `${user.name} is now ${ROLE_IN_SENTENCE[role]}.`;
   });
 }
 

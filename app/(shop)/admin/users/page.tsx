@@ -19,7 +19,7 @@ export default async function UsersPage() {
       <PageHeader title="Users" lead="Who can sign in to your shop, and with which role." />
       <div className="grid items-start gap-8 xl:grid-cols-[2fr_1fr]">
         <DataTable
-          caption="Users of your shop"
+          caption="Your shop's users"
           rows={users}
           rowKey={(u) => u.id}
           columns={[
@@ -31,9 +31,9 @@ export default async function UsersPage() {
               header: 'Sign-in',
               cell: (u) =>
                 u.disabled ? (
-                  <span className="whitespace-nowrap font-bold text-stop">✕ Disabled</span>
+                  <span className="whitespace-nowrap font-bold text-ink-soft">✕ Disabled</span>
                 ) : (
-                  <span className="whitespace-nowrap font-bold text-go">✓ Enabled</span>
+                  <span className="whitespace-nowrap font-bold text-ok">✓ Enabled</span>
                 ),
             },
             {
