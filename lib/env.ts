@@ -52,6 +52,10 @@ const schemaFor = (p: z.infer<typeof portsSchema>) => z.object({
   AUTH_SECRET: z.string().min(16, 'must be at least 16 characters').optional(),
   /** largest JSON request body a route handler reads; more answers 413 (lib/http/route.ts) */
   JSON_BODY_LIMIT_BYTES: z.coerce.number().int().min(1024).max(64 * 1024 * 1024).default(1024 * 1024),
+  /** largest G-code file an upload takes; more answers 413 (lib/programs/upload.ts) */
+  PROGRAM_MAX_BYTES: z.coerce.number().int().min(1024).max(4 * 1024 * 1024 * 1024).default(100 * 1024 * 1024),
+  /** worker threads that compute estimates; unset: the number of cores minus one, at least one */
+  ESTIMATE_POOL_SIZE: z.coerce.number().int().min(1).max(64).optional(),
 });
 
 export type Env = Omit<z.infer<ReturnType<typeof schemaFor>>, 'AUTH_SECRET' | 'S3_FORCE_PATH_STYLE'> & {
