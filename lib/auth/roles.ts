@@ -7,11 +7,17 @@
 // |------------|-------------------------------------|----------------------------------------------------|
 // | admin      | jobs, machines, customers, users    | everything                                         |
 // | programmer | jobs, machines, customers           | jobs rw, programs rw (upload), estimates rw,       |
-// |            |                                     | machines rw, customers rw                          |
+// |            |                                     | machines rw, customers rw;                         |
+// |            |                                     | job status: mark programmed, cancel                |
 // | estimator  | jobs, machines, customers           | jobs read, programs read, estimates rw (request),  |
-// |            |                                     | machines read, customers rw                        |
+// |            |                                     | machines read, customers rw;                       |
+// |            |                                     | job status: mark quoted, mark accepted, schedule,  |
+// |            |                                     | cancel                                             |
 // | operator   | jobs, machines                      | jobs read, programs read, estimates read,          |
-// |            |                                     | machines read                                      |
+// |            |                                     | machines read; job status: start run, finish run   |
+//
+// The job status steps (draft → programmed → quoted → accepted → scheduled → running →
+// done, and cancelled) are in lib/jobs/status-moves.ts; each step names one action here.
 import type { Role } from '@/lib/validation/enums';
 
 export type { Role };
@@ -20,6 +26,16 @@ export const ACTIONS = {
   'jobs:read': ['admin', 'programmer', 'estimator', 'operator'],
   // programmers and admins create jobs and upload (PRODUCT.md: the job is the programmer's)
   'jobs:write': ['admin', 'programmer'],
+  // job status steps (lib/jobs/status-moves.ts): each step belongs to the person whose work
+  // it records in PRODUCT.md's main job: the programmer's upload, the estimator's quote and
+  // the office's answer from the customer, the operator's run
+  'jobs:mark-programmed': ['admin', 'programmer'],
+  'jobs:mark-quoted': ['admin', 'estimator'],
+  'jobs:mark-accepted': ['admin', 'estimator'],
+  'jobs:schedule': ['admin', 'estimator'],
+  'jobs:start-run': ['admin', 'operator'],
+  'jobs:finish-run': ['admin', 'operator'],
+  'jobs:cancel': ['admin', 'programmer', 'estimator'],
   'programs:read': ['admin', 'programmer', 'estimator', 'operator'],
   'programs:write': ['admin', 'programmer'],
   'estimates:read': ['admin', 'programmer', 'estimator', 'operator'],

@@ -16,6 +16,13 @@ const N = false;
 const MATRIX: Record<Action, [boolean, boolean, boolean, boolean]> = {
   'jobs:read':               [Y, Y, Y, Y],
   'jobs:write':              [Y, Y, N, N],
+  'jobs:mark-programmed':    [Y, Y, N, N], // brief: Job (programmer), Upload
+  'jobs:mark-quoted':        [Y, N, Y, N], // brief: Quote (estimator)
+  'jobs:mark-accepted':      [Y, N, Y, N], // brief: estimator / office; the customer answers the quote
+  'jobs:schedule':           [Y, N, Y, N], // inferred: office work
+  'jobs:start-run':          [Y, N, N, Y], // brief: Run (operator), run timer start
+  'jobs:finish-run':         [Y, N, N, Y], // brief: Run (operator), run timer finish
+  'jobs:cancel':             [Y, Y, Y, N], // inferred: the job's programmer or the office
   'programs:read':           [Y, Y, Y, Y],
   'programs:write':          [Y, Y, N, N],
   'estimates:read':          [Y, Y, Y, Y],
