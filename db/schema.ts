@@ -17,12 +17,12 @@ import {
   bigint,
   date,
 } from 'drizzle-orm/mysql-core';
-import { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, Z_ZEROS } from '@/lib/validation/enums';
+import { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, TOOL_KINDS, Z_ZEROS } from '@/lib/validation/enums';
+import type { MachineProfile } from '@/lib/validation/machine-profile';
 
 // The enumerations have one source, lib/validation/enums.ts (client bundles read it without
 // Drizzle); they are re-exported here for the queries.
-export { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, Z_ZEROS };
-export const TOOL_KINDS = ['upcut', 'downcut', 'compression', 'straight', 'v', 'ball'] as const;
+export { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, TOOL_KINDS, Z_ZEROS };
 
 /** The job settings an estimate was made with, frozen beside it. */
 export interface EstimateSettingsDoc {
@@ -119,8 +119,8 @@ export const machineVersions = mysqlTable(
     shopId: int('shop_id').notNull().references(() => shops.id),
     machineId: int('machine_id').notNull().references(() => machines.id),
     version: int('version').notNull(),
-    /** the profile as the estimator reads it (lib/kinematics profile JSON) */
-    profile: jsonDoc<Record<string, unknown>>('profile').notNull(),
+    /** the profile as the estimator reads it (lib/validation/machine-profile.ts), tools included */
+    profile: jsonDoc<MachineProfile>('profile').notNull(),
     createdAt: created(),
   },
   (t) => [uniqueIndex('machine_versions_unique').on(t.machineId, t.version)],
@@ -298,6 +298,7 @@ export const jobEvents = mysqlTable(
 export type Shop = typeof shops.$inferSelect;
 export type User = typeof users.$inferSelect;
 export type Machine = typeof machines.$inferSelect;
+export type MachineVersion = typeof machineVersions.$inferSelect;
 export type Tool = typeof tools.$inferSelect;
 export type Material = typeof materials.$inferSelect;
 export type Customer = typeof customers.$inferSelect;

@@ -8,7 +8,8 @@ import { and, eq, sql } from 'drizzle-orm';
 import { db as defaultDb, closeDb, type Db } from './client';
 import { customers, jobs, machineVersions, machines, materials, shops, tools, users } from './schema';
 import { BCRYPT_COST, DEMO_PASSWORD, demoCustomers, demoJobs, demoMachines, demoMaterials, demoShop, demoUsers } from './seed-data';
-import { machineRowToProfile, profileToMachineColumns, readProfileFile } from './seed-machines';
+import { machineRowToProfile, profileToMachineColumns } from './queries/machines';
+import { readProfileFile } from './seed-machines';
 
 const fixturesDir = path.resolve(__dirname, '..', 'fixtures', 'machines');
 // A no-op update: "insert unless the unique key exists" without INSERT IGNORE's habit

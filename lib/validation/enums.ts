@@ -6,12 +6,15 @@ export const Z_ZEROS = ['top', 'table'] as const;
 export const JOB_STATUSES = ['draft', 'programmed', 'quoted', 'accepted', 'scheduled', 'running', 'done', 'cancelled'] as const;
 /** An estimate's life: queued, being computed by a worker thread, stored, or failed with its reason. */
 export const ESTIMATE_STATUSES = ['pending', 'running', 'done', 'failed'] as const;
+/** Router bit kinds of a machine's tool library (PRODUCT.md: up-cut, down-cut, compression, straight, V, ball). */
+export const TOOL_KINDS = ['upcut', 'downcut', 'compression', 'straight', 'v', 'ball'] as const;
 
 export type Role = (typeof ROLES)[number];
 export type HoldDown = (typeof HOLD_DOWNS)[number];
 export type ZZero = (typeof Z_ZEROS)[number];
 export type JobStatus = (typeof JOB_STATUSES)[number];
 export type EstimateStatus = (typeof ESTIMATE_STATUSES)[number];
+export type ToolKind = (typeof TOOL_KINDS)[number];
 
 export const ROLE_LABELS: Record<Role, string> = {
   admin: 'Admin',
@@ -45,4 +48,13 @@ export const JOB_STATUS_LABELS: Record<JobStatus, string> = {
   running: 'Running',
   done: 'Done',
   cancelled: 'Cancelled',
+};
+
+export const TOOL_KIND_LABELS: Record<ToolKind, string> = {
+  upcut: 'Up-cut spiral',
+  downcut: 'Down-cut spiral',
+  compression: 'Compression spiral',
+  straight: 'Straight',
+  v: 'V-bit',
+  ball: 'Ball nose',
 };

@@ -2,6 +2,7 @@
 // admin form, the `machines` API and the CLI's PROFILE.json. Lengths mm, feeds mm/min,
 // accelerations mm/s², times s, each field named with its unit. `lookaheadBlocks` 0 and
 // `maxBlocksPerS` 0 mean unlimited.
+import { TOOL_KINDS } from '@/lib/validation/enums';
 import { z } from '@/lib/validation/zod';
 
 type Issue = { input?: unknown };
@@ -11,9 +12,6 @@ const int = () => num().int({ error: 'must be a whole number' });
 const positive = () => num().positive({ error: 'must be greater than 0' });
 const nonNegative = () => num().min(0, { error: 'must be 0 or more' });
 const axes = (value: () => z.ZodNumber) => z.object({ x: value(), y: value(), z: value() }, { error: need('an object with x, y and z') });
-
-export const TOOL_KINDS = ['upcut', 'downcut', 'compression', 'straight', 'v', 'ball'] as const;
-export type ToolKind = (typeof TOOL_KINDS)[number];
 
 export const toolSchema = z.object({
   number: int().min(0, { error: 'must be 0 or more' }).max(65535, { error: 'must be 65535 or less' }),
