@@ -28,7 +28,7 @@ export async function requireRole(roles: readonly Role[], what = 'page'): Promis
   return user;
 }
 
-const SUBJECT: Record<string, string> = { jobs: 'job', machines: 'machine', customers: 'customer', users: 'user', programs: 'program', estimates: 'estimate' };
+const SUBJECT: Record<string, string> = { jobs: 'job', machines: 'machine', customers: 'customer', users: 'user', programs: 'program', estimates: 'estimate', materials: 'material' };
 
 /** requireRole with the roles looked up in the table, e.g. requireAction('jobs:write'). */
 export function requireAction(action: Action): Promise<SessionUser> {

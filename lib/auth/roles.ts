@@ -5,16 +5,18 @@
 //
 // | role       | pages                               | actions                                            |
 // |------------|-------------------------------------|----------------------------------------------------|
-// | admin      | jobs, machines, customers, users    | everything                                         |
-// | programmer | jobs, machines, customers           | jobs rw, programs rw (upload), estimates rw,       |
-// |            |                                     | machines rw, customers rw;                         |
+// | admin      | jobs, machines, materials,          | everything (shop settings only here)               |
+// |            | customers, users                    |                                                    |
+// | programmer | jobs, machines, materials,          | jobs rw, programs rw (upload), estimates rw,       |
+// |            | customers                           | machines rw, materials rw, customers rw;           |
 // |            |                                     | job status: mark programmed, cancel                |
-// | estimator  | jobs, machines, customers           | jobs read, programs read, estimates rw (request),  |
-// |            |                                     | machines read, customers rw;                       |
+// | estimator  | jobs, machines, materials,          | jobs read, programs read, estimates rw (request),  |
+// |            | customers                           | machines read, materials read, customers rw;       |
 // |            |                                     | job status: mark quoted, mark accepted, schedule,  |
 // |            |                                     | cancel                                             |
-// | operator   | jobs, machines                      | jobs read, programs read, estimates read,          |
-// |            |                                     | machines read; job status: start run, finish run   |
+// | operator   | jobs, machines, materials           | jobs read, programs read, estimates read,          |
+// |            |                                     | machines read, materials read;                     |
+// |            |                                     | job status: start run, finish run                  |
 //
 // The job status steps (draft → programmed → quoted → accepted → scheduled → running →
 // done, and cancelled) are in lib/jobs/status-moves.ts; each step names one action here.
@@ -43,10 +45,15 @@ export const ACTIONS = {
   'estimates:write': ['admin', 'programmer', 'estimator'],
   'machines:read': ['admin', 'programmer', 'estimator', 'operator'],
   'machines:write': ['admin', 'programmer'],
+  // sheet materials are set-up data like the machines: the same roles keep them
+  'materials:read': ['admin', 'programmer', 'estimator', 'operator'],
+  'materials:write': ['admin', 'programmer'],
   'customers:read': ['admin', 'programmer', 'estimator'],
   'customers:write': ['admin', 'programmer', 'estimator'],
   'users:read': ['admin'],
   'users:write': ['admin'],
+  // shop-wide settings (the length unit forms show)
+  'shop:write': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof ACTIONS;
@@ -62,6 +69,7 @@ export interface PageRule {
 export const PAGES = {
   jobs: { href: '/jobs', label: 'Jobs', needs: 'jobs:read' },
   machines: { href: '/machines', label: 'Machines', needs: 'machines:read' },
+  materials: { href: '/materials', label: 'Materials', needs: 'materials:read' },
   customers: { href: '/customers', label: 'Customers', needs: 'customers:read' },
   users: { href: '/admin/users', label: 'Users', needs: 'users:read' },
 } as const satisfies Record<string, PageRule>;

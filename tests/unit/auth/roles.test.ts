@@ -29,10 +29,13 @@ const MATRIX: Record<Action, [boolean, boolean, boolean, boolean]> = {
   'estimates:write':         [Y, Y, Y, N],
   'machines:read':           [Y, Y, Y, Y],
   'machines:write':          [Y, Y, N, N],
+  'materials:read':          [Y, Y, Y, Y], // brief: the operator knows the sheet; materials prefill jobs
+  'materials:write':         [Y, Y, N, N], // brief: Set-up (admin) lists materials; kept with machines:write
   'customers:read':          [Y, Y, Y, N],
   'customers:write':         [Y, Y, Y, N],
   'users:read':              [Y, N, N, N],
   'users:write':             [Y, N, N, N],
+  'shop:write':              [Y, N, N, N], // brief: the shop owner / admin sets the shop up
 };
 
 describe('role table', () => {
@@ -55,10 +58,10 @@ describe('role table', () => {
 
 describe('navigation', () => {
   const expected: Record<Role, string[]> = {
-    admin: ['Jobs', 'Machines', 'Customers', 'Users'],
-    programmer: ['Jobs', 'Machines', 'Customers'],
-    estimator: ['Jobs', 'Machines', 'Customers'],
-    operator: ['Jobs', 'Machines'],
+    admin: ['Jobs', 'Machines', 'Materials', 'Customers', 'Users'],
+    programmer: ['Jobs', 'Machines', 'Materials', 'Customers'],
+    estimator: ['Jobs', 'Machines', 'Materials', 'Customers'],
+    operator: ['Jobs', 'Machines', 'Materials'],
   };
 
   it.each(ROLES)('%s sees exactly its pages, in navigation order', (role) => {
