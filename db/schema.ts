@@ -65,10 +65,14 @@ export const users = mysqlTable(
     passwordHash: varchar('password_hash', { length: 100 }).notNull(),
     role: mysqlEnum('role', ROLES).notNull(),
     disabled: boolean('disabled').notNull().default(false),
+    /** set with a one-time password from an admin: nothing but choosing a new one is allowed until then */
+    mustChangePassword: boolean('must_change_password').notNull().default(false),
     createdAt: created(),
     updatedAt: updated(),
   },
-  (t) => [uniqueIndex('users_email_unique').on(t.email), index('users_shop_idx').on(t.shopId)],
+  // An e-mail is unique within a shop, not across Kerfcast: an admin must not learn that
+  // an address has an account in another shop (sign-in tries every account of the address).
+  (t) => [uniqueIndex('users_shop_email_unique').on(t.shopId, t.email), index('users_email_idx').on(t.email)],
 );
 
 export const machines = mysqlTable(
@@ -293,6 +297,44 @@ export const jobEvents = mysqlTable(
     createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
   },
   (t) => [index('job_events_job_idx').on(t.jobId, t.id)],
+);
+
+/**
+ * One signed-in session (the token's id). The session token itself stays a signed JWT;
+ * this row lets the server end it (sign-out, disable, role or password change) and
+ * holds the idle and absolute limits, so they hold across server processes.
+ */
+export const userSessions = mysqlTable(
+  'user_sessions',
+  {
+    /** random 128-bit id, hex, carried in the token */
+    id: char('id', { length: 32 }).primaryKey(),
+    // Sessions go with their user (a test or an admin tool that deletes a user).
+    shopId: int('shop_id').notNull().references(() => shops.id, { onDelete: 'cascade' }),
+    userId: int('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    lastSeenAt: timestamp('last_seen_at').notNull().defaultNow(),
+    endedAt: timestamp('ended_at'),
+  },
+  (t) => [index('user_sessions_user_idx').on(t.userId), index('user_sessions_seen_idx').on(t.lastSeenAt)],
+);
+
+/**
+ * Failed-sign-in counters, per e-mail and per client address, shared by every server
+ * process. The key is a sha256 (hex) of the kind and the value, so neither e-mails
+ * nor addresses are kept in clear and every key has the same size.
+ */
+export const signInLimits = mysqlTable(
+  'sign_in_limits',
+  {
+    keyHash: char('key_hash', { length: 64 }).primaryKey(),
+    kind: mysqlEnum('kind', ['email', 'ip']).notNull(),
+    /** attempts counted in the current window, including those still being checked */
+    attempts: int('attempts').notNull(),
+    /** when the window ends and the count starts again */
+    expiresAt: timestamp('expires_at', { fsp: 3 }).notNull(),
+  },
+  (t) => [index('sign_in_limits_expires_idx').on(t.expiresAt)],
 );
 
 export type Shop = typeof shops.$inferSelect;

@@ -56,8 +56,8 @@ describe('migrations on an empty database', () => {
     const [rows] = await conn.query('SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE()');
     const names = (rows as { name: string }[]).map((r) => r.name).sort();
     // shops, users, machines, machine_versions, tools, materials, customers, jobs,
-    // programs, program_versions, estimates, job_events
-    expect(tables.length).toBe(12);
+    // programs, program_versions, estimates, job_events, user_sessions, sign_in_limits
+    expect(tables.length).toBe(14);
     expect(names).toEqual([...tables.map((t) => t.name), '__drizzle_migrations'].sort());
   });
 
@@ -83,13 +83,15 @@ describe('migrations on an empty database', () => {
     );
   });
 
-  it('enforces the unique e-mail and the shop foreign key', async () => {
-    await conn.query("INSERT INTO shops (name, slug) VALUES ('Scratch shop', 'scratch')");
-    const [[shop]] = (await conn.query("SELECT id FROM shops WHERE slug = 'scratch'")) as unknown as [{ id: number }[]];
+  it('enforces the e-mail unique per shop and the shop foreign key', async () => {
+    await conn.query("INSERT INTO shops (name, slug) VALUES ('Scratch shop', 'scratch'), ('Scratch shop 2', 'scratch-2')");
+    const [[shop, other]] = (await conn.query("SELECT id FROM shops WHERE slug LIKE 'scratch%' ORDER BY slug")) as unknown as [{ id: number }[]];
     const user = (email: string, shopId: number) =>
       conn.query("INSERT INTO users (shop_id, email, name, password_hash, role) VALUES (?, ?, 'Test', 'x', 'operator')", [shopId, email]);
     await user('one@scratch.example', shop.id);
     await expect(user('one@scratch.example', shop.id)).rejects.toMatchObject({ code: 'ER_DUP_ENTRY' });
+    // issue 18 finding 9: the same address may have an account in another shop
+    await expect(user('one@scratch.example', other.id)).resolves.toBeDefined();
     await expect(user('two@scratch.example', shop.id + 999)).rejects.toMatchObject({ code: 'ER_NO_REFERENCED_ROW_2' });
   });
 
@@ -103,7 +105,7 @@ describe('migrations on an empty database', () => {
       return out;
     };
     await conn.query('DELETE FROM users');
-    await conn.query("DELETE FROM shops WHERE slug = 'scratch'");
+    await conn.query("DELETE FROM shops WHERE slug LIKE 'scratch%'");
     const handle = connectTestDb(scratch.url);
     try {
       await seed(handle.db);
