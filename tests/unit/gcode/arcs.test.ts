@@ -163,28 +163,47 @@ describe('flattening and chord counts (docs/references.md, Motion: n = ⌈θ / (
 });
 
 describe('against @flatten-js/core (independent reference)', () => {
-  const cases: Array<[string, number, number, number, number, boolean]> = [
-    // program, start x, y, end x, y, ccw
-    ['G2 X10 Y16 I3 J4', 7, 7, 10, 16, false],
-    ['G3 X-10 Y4 I-8 J-6', 4, 2, -10, 4, true],
-    ['G2 X40 Y-10 R25', 0, 0, 40, -10, false],
-    ['G3 X40 Y-10 R-25', 0, 0, 40, -10, true],
+  // The centre is worked out here from the words alone, never read from the move list:
+  // centre format (NISTIR 6556 §3.5.3.2): start + (I, J); radius format (§3.5.3.1): on the
+  // perpendicular bisector of the chord, h = √(R² − (c/2)²) from its midpoint, to the left of
+  // the chord's direction for G3 and to the right for G2 when R > 0 (the arc of 180° or less),
+  // on the other side when R < 0 (plane geometry of a circle through two points).
+  function centreOf(sx: number, sy: number, ex: number, ey: number, ccw: boolean, w: { i?: number; j?: number; r?: number }): [number, number] {
+    if (w.r === undefined) return [sx + (w.i ?? 0), sy + (w.j ?? 0)];
+    const dx = ex - sx;
+    const dy = ey - sy;
+    const c = Math.hypot(dx, dy);
+    const h = Math.sqrt(w.r * w.r - (c / 2) ** 2);
+    const left = ccw === w.r > 0;
+    const [nx, ny] = left ? [-dy / c, dx / c] : [dy / c, -dx / c];
+    return [(sx + ex) / 2 + h * nx, (sy + ey) / 2 + h * ny];
+  }
+  const cases: Array<[string, number, number, number, number, boolean, { i?: number; j?: number; r?: number }]> = [
+    // program, start x, y, end x, y, ccw, the words that fix the centre
+    ['G2 X10 Y16 I3 J4', 7, 7, 10, 16, false, { i: 3, j: 4 }],
+    ['G3 X-10 Y4 I-8 J-6', 4, 2, -10, 4, true, { i: -8, j: -6 }],
+    ['G2 X40 Y-10 R25', 0, 0, 40, -10, false, { r: 25 }],
+    ['G3 X40 Y-10 R-25', 0, 0, 40, -10, true, { r: -25 }],
+    ['G3 X40 Y-10 R25', 0, 0, 40, -10, true, { r: 25 }],
   ];
-  for (const [block, sx, sy, ex, ey, ccw] of cases) {
-    it(`${block}: length and centre agree`, () => {
+  for (const [block, sx, sy, ex, ey, ccw, words] of cases) {
+    it(`${block}: centre, radius and length agree with a reference arc built from the words`, () => {
       const r = run(`G21 F100\nG0 X${sx} Y${sy}\n${block}\nM2`);
       expect(errors(r)).toEqual([]);
-      const a = r.moves.arcs;
-      const c = new Flatten.Point(a.cx[0], a.cy[0]);
-      const start = Math.atan2(sy - a.cy[0], sx - a.cx[0]);
-      const end = Math.atan2(ey - a.cy[0], ex - a.cx[0]);
-      // flatten-js: counterClockwise flag true = CCW
-      const ref = new Flatten.Arc(c, a.radius[0], start, end, ccw);
-      expect(arcLength(r.moves, 0)).toBeCloseTo(ref.length, 9);
-      expect(ref.end.x).toBeCloseTo(ex, 9);
-      expect(ref.end.y).toBeCloseTo(ey, 9);
-      expect(ref.start.distanceTo(new Flatten.Point(sx, sy))[0]).toBeLessThan(1e-9);
       expect(codes(r)).toEqual([]);
+      const [cx, cy] = centreOf(sx, sy, ex, ey, ccw, words);
+      const radius = Math.hypot(sx - cx, sy - cy);
+      const a = r.moves.arcs;
+      expect(a.cx[0]).toBeCloseTo(cx, 9);
+      expect(a.cy[0]).toBeCloseTo(cy, 9);
+      expect(a.radius[0]).toBeCloseTo(radius, 9);
+      const c = new Flatten.Point(cx, cy);
+      // flatten-js: counterClockwise flag true = CCW
+      const ref = new Flatten.Arc(c, radius, Math.atan2(sy - cy, sx - cx), Math.atan2(ey - cy, ex - cx), ccw);
+      expect(ref.end.distanceTo(new Flatten.Point(ex, ey))[0]).toBeLessThan(1e-6); // the words' end lies on the circle
+      expect(arcLength(r.moves, 0)).toBeCloseTo(ref.length, 9);
+      // R > 0 is the arc of 180° or less, R < 0 the longer one (§3.5.3.1)
+      if (words.r !== undefined) expect(ref.length > Math.PI * radius).toBe(words.r < 0);
     });
   }
 });

@@ -110,6 +110,18 @@ describe('other cycles (NISTIR 6556 §3.5.16; G73 a dialect extension)', () => {
     expect(errors(run('G21 F100\nG0 Z5\nG81 X0 Y0 Z-3\nM2'))).toEqual(['cycle-missing-r']);
   });
 
+  it.each([['G18'], ['G19']])('%s: canned cycles are not interpreted outside G17; the line gets an error and moves nothing', (plane) => {
+    // NISTIR 6556 §3.5.16 runs cycles in whichever plane is selected (from memory); Kerfcast
+    // runs them in XY only and says so (docs/references.md §11), so a G18/G19 cycle is never
+    // drawn or timed as if it were an XY one
+    const r = run(`G21 F100\nG0 X0 Y0 Z5\n${plane} G81 X1 Y1 Z-2 R1\nX4 Y4\nG17 G81 X6 Y6 Z-2 R1\nM2`);
+    expect(errors(r)).toEqual(['cycle-plane-unsupported', 'cycle-plane-unsupported']);
+    expect(r.diagnostics.map((d) => d.line)).toEqual([3, 4]);
+    // only the G17 hole at (6, 6) is drilled
+    expect(points(r, [MoveKind.feed])).toEqual([['feed', 6, 6, -2]]);
+    expect(r.moves.line[r.moves.kind.indexOf(MoveKind.feed)]).toBe(5);
+  });
+
   it('inch cycle values are converted (1 in = 25.4 mm, NIST SP 811)', () => {
     const r = run('G20 F10\nG0 Z1\nG81 X1 Y1 Z-0.5 R0.1\nM2');
     expect(points(r, [MoveKind.feed])).toEqual([['feed', 25.4, 25.4, -12.7]]);

@@ -16,14 +16,36 @@ describe('fixture programs', () => {
   it('there are several, in more than one dialect', () => {
     expect(files.length).toBeGreaterThanOrEqual(4);
   });
+  // What fixtures/generate.ts writes into each program, worked out from its recipe: passes
+  // per cut = ⌈depth / stepdown⌉ (passDepths), a round hole is two half circles per pass, a
+  // profile four quarter-circle corners per pass (one full circle of the corner radius r);
+  // arc length 2πr per pass and circle (circle geometry). Depths: holes and profiles go 0.2 mm
+  // below the sheet.
+  const expected: Record<string, { tools: number[]; arcs: number; arcLengthMm?: number }> = {
+    // 4 parts × (hole ⌈18.2/6⌉ = 4 passes × 2 + profile 4 passes × 4); radii drawn at random
+    'shelf-brackets-birch-18mm.nc': { tools: [3], arcs: 4 * (4 * 2 + 4 * 4) },
+    // 6 × (hole r 3: ⌈3.2/1.5⌉ = 3 passes × 2 arcs; profile r 5: 3 passes × 4); 6·3·2π(3 + 5) = 288π
+    'price-tag-holders-acrylic-3mm.tap': { tools: [5], arcs: 6 * (3 * 2 + 3 * 4), arcLengthMm: 288 * Math.PI },
+    // tools 2 (pockets, drilling) and 4 (profiles); 2 profiles r 25: ⌈12.2/4⌉ = 4 passes × 4; 2·4·2π·25 = 400π
+    'cutting-boards-hdpe-12mm-inch.nc': { tools: [2, 4], arcs: 2 * 4 * 4, arcLengthMm: 400 * Math.PI },
+    // 5 profiles r 8: ⌈3.2/1.5⌉ = 3 passes × 4; 5·3·2π·8 = 240π
+    'sign-letters-acrylic-3mm.gcode': { tools: [1], arcs: 5 * 3 * 4, arcLengthMm: 240 * Math.PI },
+  };
+  it('every fixture program has its expectations here', () => {
+    expect([...files].sort()).toEqual(Object.keys(expected).sort());
+  });
   for (const f of files) {
-    it(`${f} interprets without errors, with tools, feeds and a program end`, () => {
+    it(`${f} interprets without errors, with the tools, arcs and program end its recipe gives`, () => {
       const r = interpret(readFileSync(path.join(dir, f), 'utf8'));
+      const want = expected[f];
       expect(errors(r)).toEqual([]);
-      expect(r.facts.toolsUsed.length).toBeGreaterThan(0);
-      expect(r.moves.arcs.count).toBeGreaterThan(0);
-      expect(r.moves.kind.includes(MoveKind.programEnd)).toBe(true);
-      expect(totals(r).feed).toBeGreaterThan(100);
+      expect(r.facts.toolsUsed).toEqual(want.tools);
+      expect(r.moves.arcs.count).toBe(want.arcs);
+      // the inch program writes 3 decimals of an inch: 25 mm is 0.984 in, 0.03 mm off per radius
+      if (want.arcLengthMm !== undefined) expect(Math.abs(totals(r).arc - want.arcLengthMm)).toBeLessThan(0.1);
+      // the program ends with M30 on its second-last line (the last is the closing %)
+      expect(r.moves.kind[r.moves.count - 1]).toBe(MoveKind.programEnd);
+      expect(r.moves.line[r.moves.count - 1]).toBe(r.facts.lineCount - 1);
     });
   }
   it('the inch program declares inch', () => {

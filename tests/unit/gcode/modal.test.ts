@@ -14,6 +14,12 @@ describe('modal groups (NISTIR 6556 Table 4, §3.3.5)', () => {
   it.each([['G17 G18'], ['G90 G91'], ['G93 G94'], ['G20 G21'], ['G40 G41'], ['G43 G49'], ['G98 G99'], ['G54 G55'], ['G61 G64'], ['M3 M5'], ['M0 M2']])('%s on one line is an error', (pair) => {
     expect(errors(run(`G21 F100\n${pair}\nM2`))).toEqual(['modal-group-conflict']);
   });
+  it.each([['G0 G81'], ['G1 G83'], ['G2 G3'], ['G80 G81'], ['G81 G82']])('%s X1 Y1 Z-2 R1: motion and canned cycles share group 1, so the line is an error and moves nothing (Table 4, §3.3.5)', (pair) => {
+    const r = run(`G21 F100\nG0 Z5\n${pair} X1 Y1 Z-2 R1\nM2`);
+    expect(errors(r)).toEqual(['modal-group-conflict']);
+    expect(r.diagnostics[0].line).toBe(3);
+    expect(points(r, [MoveKind.rapid, MoveKind.feed, MoveKind.arc])).toEqual([['rapid', 0, 0, 5]]);
+  });
   it('M7 and M8 together are allowed (NISTIR 6556 §3.4)', () => {
     const r = run('G21 F100\nM7 M8\nG1 X1\nM2');
     expect(errors(r)).toEqual([]);
@@ -33,7 +39,7 @@ describe('modal groups (NISTIR 6556 Table 4, §3.3.5)', () => {
 });
 
 describe('distance mode and units', () => {
-  it('G91 sequence: each word adds to the current point (NISTIR 6556 §3.5.22)', () => {
+  it('G91 sequence: each word adds to the current point (NISTIR 6556 §3.5.17)', () => {
     const r = run('G21 G91 F100\nG1 X10 Y5\nX-3\nY-5 Z-2\nG90 X0 Y0 Z0\nM2');
     expect(points(r, [MoveKind.feed])).toEqual([
       ['feed', 10, 5, 0],
@@ -54,6 +60,20 @@ describe('distance mode and units', () => {
     const r = run('G20\nG0 X48 Y96\nM2');
     expect(r.moves.x[0]).toBeCloseTo(1219.2, 9);
     expect(r.moves.y[0]).toBeCloseTo(2438.4, 9);
+  });
+  it('units switched mid-program: the current point stays where it is, later words are read in the new unit (NISTIR 6556 §3.5.7, section number from memory; 1 in = 25.4 mm, NIST SP 811)', () => {
+    // X10 mm, then G20: X1 is 25.4 mm; G91 X1 adds 25.4 mm; G21 G90 X100 is 100 mm; an F given
+    // after G20 is in in/min (10 in/min = 254 mm/min)
+    const r = run('G21 F254\nG1 X10\nG20\nG1 X1\nG91 X1\nG21 G90 X100\nG20 X2 F10\nM2');
+    expect(points(r, [MoveKind.feed]).map((p) => p[1])).toEqual([10, 25.4, 50.8, 100, 50.8]);
+    expect(r.moves.feed[4]).toBeCloseTo(254, 4);
+    expect(errors(r)).toEqual([]);
+    // a G20 line alone moves nothing: the point after it is still X10 (10 mm, not 10 in)
+    const still = run('G21 F100\nG1 X10\nG20\nG91 G1 Y1\nM2');
+    expect(points(still, [MoveKind.feed])).toEqual([
+      ['feed', 10, 0, 0],
+      ['feed', 10, 25.4, 0],
+    ]);
   });
   it('defaultUnits inch applies before any G20/G21', () => {
     const r = run('G0 X1\nM2', { defaultUnits: 'inch' });
@@ -107,6 +127,31 @@ describe('dwell, frames and returns', () => {
       ['rapid', 0, 0, 30],
     ]);
     expect(codes(r)).toContain('home-position-assumed');
+  });
+  it('G30 goes through the programmed point to the second home position (NISTIR 6556 §3.5.8)', () => {
+    // intermediate point Z20 in the work frame; the second home (500, 300, 0) in machine
+    // coordinates is (500, 300, 30) in a work frame whose Z zero lies 30 mm below machine zero
+    const opts = { home: { x: 0, y: 0, z: 0 }, home2: { x: 500, y: 300, z: 0 }, workOffset: { x: 0, y: 0, z: -30 } };
+    const r = run('G21\nG0 X10 Y10 Z5\nG30 Z20\nM2', opts);
+    expect(points(r, [MoveKind.rapid]).slice(1)).toEqual([
+      ['rapid', 10, 10, 20],
+      ['rapid', 500, 300, 30],
+    ]);
+    expect(r.moves.line[2]).toBe(3);
+    // with no axis word the intermediate point is the current point: one move only
+    const direct = run('G21\nG0 X10 Y10 Z5\nG30\nM2', opts);
+    expect(points(direct, [MoveKind.rapid]).slice(1)).toEqual([['rapid', 500, 300, 30]]);
+    // G30 is not modal (Table 4, group 0): the next axis words continue G0
+    const after = run('G21\nG0 X10\nG30\nX1\nM2', opts);
+    expect(points(after, [MoveKind.rapid]).at(-1)).toEqual(['rapid', 1, 300, 30]);
+  });
+  it('G1 and G28 on one line both use the axis words: an error, and only G28 is applied (NISTIR 6556 §3.4)', () => {
+    const r = run('G21 F100\nG1 G28 X1\nM2');
+    expect(errors(r)).toEqual(['axis-word-conflict']);
+    expect(points(r, [MoveKind.rapid, MoveKind.feed])).toEqual([
+      ['rapid', 1, 0, 0],
+      ['rapid', 0, 0, 0],
+    ]);
   });
   it('G55–G59 are taken as G54 with one info finding', () => {
     const r = run('G21\nG55\nG0 X1\nG56\nM2', { workOffset: { x: 5, y: 0, z: 0 } });
@@ -162,7 +207,22 @@ describe('M codes, tools and spindle', () => {
     expect(m.feed[f]).toBe(100); // G94 again
     expect(m.flags[f] & (MoveFlag.spindleOn | MoveFlag.coolant)).toBe(0); // M5, M9
     expect(m.arcs.plane[0]).toBe(0); // G17
-    expect(m.kind[m.kind.indexOf(MoveKind.programEnd)]).toBe(MoveKind.programEnd);
+    // the records in order: spindle start (line 2), the end (line 3), then the two moves
+    expect(Array.from(m.kind)).toEqual([MoveKind.spindleStart, MoveKind.programEnd, MoveKind.feed, MoveKind.arc]);
+    expect(m.line[1]).toBe(3);
+  });
+  it('M2 clears the G92 offsets (NISTIR 6556 §3.6.1: origin offsets back to their default, as G92.2 does)', () => {
+    // G92 X0 at X10 shifts the program origin by 10; after M2 X5 is the work frame's X5 again
+    const r = run('G21\nG0 X10 Y10\nG92 X0 Y0\nG0 X5\nM2\nG0 X5\n', { continueAfterEnd: true });
+    expect(points(r, [MoveKind.rapid])).toEqual([
+      ['rapid', 10, 10, 0],
+      ['rapid', 15, 10, 0],
+      ['rapid', 5, 10, 0],
+    ]);
+  });
+  it('M30 clears them too, and the G91 of the first run (§3.6.1)', () => {
+    const r = run('G21 G91\nG0 X10\nG92 X0\nM30\nG0 X5\n', { continueAfterEnd: true });
+    expect(points(r, [MoveKind.rapid]).map((p) => p[1])).toEqual([10, 5]);
   });
   it('code after M30 is reported once and not interpreted (default)', () => {
     const r = run('G21\nG0 X1\nM30\nG0 X5\nG0 X6\n%');

@@ -34,9 +34,22 @@ const op: fc.Arbitrary<Op> = fc.oneof(
 
 const f4 = (v: number) => (Math.round(v * 1e4) / 1e4).toFixed(4);
 
+type Xyz = [number, number, number];
+
 /** the program as lists of words per line (canonical form), tracking the current point */
 function blocks(ops: Op[]): string[][] {
+  return program(ops).lines;
+}
+
+/**
+ * The lines and, per line that moves, the point the generator tracked for its end: G0/G1 go
+ * to their words, an arc to its end word, a G98 drill cycle ends over its hole at the higher
+ * of the Z before it and R (NISTIR 6556 §3.5.20).
+ */
+function program(ops: Op[]): { lines: string[][]; ends: Array<Xyz | null> } {
   const out: string[][] = [['G21', 'G90', 'G17', 'G94'], ['F1200']];
+  const ends: Array<Xyz | null> = [null, null];
+  const mark = () => { while (ends.length < out.length) ends.push(null); ends[out.length - 1] = [x, y, z]; };
   let x = 0;
   let y = 0;
   let z = 0;
@@ -44,6 +57,7 @@ function blocks(ops: Op[]): string[][] {
     if (o.k === 'G0' || o.k === 'G1') {
       out.push([o.k, 'X' + f4(o.x), 'Y' + f4(o.y), 'Z' + f4(o.z)]);
       [x, y, z] = [o.x, o.y, o.z];
+      mark();
     } else if (o.k === 'arc') {
       const a0 = (o.a0 * Math.PI) / 180;
       const sw = ((o.ccw ? 1 : -1) * o.sweep * Math.PI) / 180;
@@ -58,18 +72,22 @@ function blocks(ops: Op[]): string[][] {
       else w.push('I' + f4(cx - x), 'J' + f4(cy - y));
       out.push(w);
       [x, y, z] = [ex, ey, ez];
+      mark();
     } else if (o.k === 'drill') {
       const rz = z + 2;
       const w = [o.code, 'G98', 'X' + f4(o.x), 'Y' + f4(o.y), 'Z' + f4(rz - o.depth), 'R' + f4(rz)];
       if (o.code === 'G83') w.push('Q' + f4(o.q));
       if (o.code === 'G82') w.push('P0.5');
-      out.push(w, ['G80']);
+      out.push(w);
       [x, y, z] = [o.x, o.y, Math.max(z, rz)];
+      mark();
+      out.push(['G80']);
     } else if (o.k === 'dwell') out.push(['G4', 'P' + o.p.toFixed(1)]);
     else if (o.k === 'tool') out.push(['T' + o.t, 'M6'], ['S' + o.s, 'M3']);
   }
   out.push(['M5'], ['M30']);
-  return out;
+  while (ends.length < out.length) ends.push(null);
+  return { lines: out, ends };
 }
 
 interface Style {
@@ -113,6 +131,36 @@ describe('random valid programs', () => {
       }),
       { numRuns: 400 },
     );
+  });
+
+  it('every line that moves ends at the point the generator tracked', () => {
+    let checked = 0;
+    let runs = 0;
+    fc.assert(
+      fc.property(fc.array(op, { minLength: 1, maxLength: 40 }), (ops) => {
+        runs++;
+        const { lines, ends } = program(ops);
+        const r = interpret(render(lines, { comments: false, blank: false, lower: false, spacing: 1, numbers: false, crlf: false }));
+        const m = r.moves;
+        // the last record of each source line (plain rendering: line k + 1 is lines[k])
+        const lastOfLine = new Map<number, number>();
+        for (let i = 0; i < m.count; i++) lastOfLine.set(m.line[i], i);
+        ends.forEach((want, k) => {
+          if (!want) return;
+          const i = lastOfLine.get(k + 1);
+          expect(i, `line ${k + 1}: ${lines[k].join(' ')}`).toBeDefined();
+          // words are written to 4 decimals, so 1e-6 mm is far below any rounding of the text
+          expect(Math.abs(m.x[i!] - want[0])).toBeLessThan(1e-6);
+          expect(Math.abs(m.y[i!] - want[1])).toBeLessThan(1e-6);
+          expect(Math.abs(m.z[i!] - want[2])).toBeLessThan(1e-6);
+          checked++;
+        });
+      }),
+      { numRuns: 300 },
+    );
+    // 300 programs of 1–40 operations, 9 in 11 of them moves (by weight): thousands of end points
+    expect(runs).toBe(300);
+    expect(checked).toBeGreaterThan(1000);
   });
 
   it('move count and total length are invariant to comments, blank lines, case, spacing, N numbers, CRLF', () => {

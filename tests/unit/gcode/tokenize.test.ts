@@ -28,13 +28,20 @@ const randomLine = fc.array(fragment, { maxLength: 12 }).map((parts) => parts.jo
 
 describe('scanner vs gcode-parser parseLine', () => {
   it('property: whenever the scanner takes a line, its words equal parseLine words (Object.is on values)', () => {
+    let taken = 0;
     fc.assert(
       fc.property(randomLine, (line) => {
         const s = scanned(line);
-        if (s.issues === 0) expect(s.words).toEqual(parseLine(line).words);
+        if (s.issues === 0) {
+          taken++;
+          expect(s.words).toEqual(parseLine(line).words);
+        }
       }),
       { numRuns: 5000 },
     );
+    // the scanner declines lines with stray text, comments it cannot nest and the like (about
+    // 60% of these); the comparison must still have run on a good share of the 5000
+    expect(taken).toBeGreaterThanOrEqual(1000);
   });
 
   it('property: tokenizeLine (the interpreter path) always equals parseLine words', () => {
