@@ -1,30 +1,48 @@
 // Through-cut and program checks: from the move list (lib/gcode), the job's sheet, Z zero,
 // tools and hold-down method to the parts a program frees, whether each is held, the order
-// they come free, plunge points, and findings with line numbers. The model: feed moves at or
-// below the sheet bottom chained into closed loops in XY (cut-graph, faces), nested into parts
-// and holes (nesting, parts), hold by tabs, skin or the hold-down (hold), and per-move
-// program checks (program-checks). The result is an aid for the programmer and the operator,
-// not a guarantee. The polygon work runs in WebAssembly (geometry), loaded once by
-// loadAnalysis(); analyze() itself stays synchronous.
+// they come free, plunge points, and findings with line numbers. The result is an aid for the
+// programmer and the operator, not a guarantee. The polygon work runs in WebAssembly
+// (geometry/polygons.ts), loaded once by loadAnalysis(); analyze() itself stays synchronous.
+//
+// The stages, in the order analyze() runs them (folder/file: what it does, input → output):
+//
+// | stage               | module                                  | input                                   | output                                  |
+// |---------------------|-----------------------------------------|-----------------------------------------|-----------------------------------------|
+// | 1 move pass         | pass/scan.ts (arc-chords.ts)            | MoveList, ScanLevels                    | ScanResult: CutGraph, first lines/tool  |
+// |   program checks    | checks/program-checks.ts (in the pass)  | one move at a time, MoveSlot            | findings, PlungePoints                  |
+// |   band              | graph/band.ts (in the pass)             | chords near the sheet bottom            | pieces and arcs added to the CutGraph   |
+// | 2 cut graph         | graph/cut-graph.ts, edge-arcs.ts        | pieces, arcs                            | CutGraph (vertices, edges, EdgeArcs)    |
+// | 3 prune, crossings  | graph/faces.ts prune, graph/crossings.ts| CutGraph                                | PrunedGraph, Crossing[]                 |
+// | 4 loops             | graph/faces.ts extractLoops             | CutGraph, PrunedGraph                   | GraphLoop[] (closed, counter-clockwise) |
+// | 5 loop shapes       | shapes/loops.ts, loop-shapes.ts         | GraphLoop                               | LoopInfo (shared LoopShape + origin)    |
+// | 6 nesting           | shapes/nesting.ts                       | LoopInfo[]                              | LoopNode[] (parts and their holes)      |
+// | 7 parts             | shapes/parts.ts, shape-cache.ts         | LoopNode[], hold-down                   | BuiltPart[] → AnalysisPart[]            |
+// |   hold verdicts     | checks/hold.ts (from parts)             | a part's area, tabs, skin, hold-down    | held or not, by what                    |
+// | 8 cut order         | checks/cut-order.ts                     | MoveList, BuiltPart[]                   | findings                                |
+// | 9 sheet lift        | checks/sheet-lift.ts                    | sheet, tools, first through cut by tool | findings                                |
+// | findings            | checks/findings.ts                      | every stage's findings                  | Finding[] sorted, counts per kind       |
+//
+// Shared by the stages: geometry/ (Clipper rings and paths, small vector helpers), types.ts
+// (the public input and output), settings.ts (the tunable limits), units.ts, typed-arrays.ts.
 import type { MoveList } from '@/lib/gcode/move-list';
-import { findCrossings } from './crossings';
-import { checkCutOrder } from './cut-order';
-import { extractLoops, prune, type GraphLoop } from './faces';
-import { FindingSink, fmt, THROWN_PIECE } from './findings';
-import { loadClipper, loadedClipper } from './geometry';
-import { LoopShapes } from './loop-shapes';
-import { describeLoop } from './loops';
-import { nestLoops } from './nesting';
-import { buildParts } from './parts';
-import { ProgramChecks } from './program-checks';
-import { scanMoves } from './scan';
+import { findCrossings } from './graph/crossings';
+import { checkCutOrder } from './checks/cut-order';
+import { extractLoops, prune, type GraphLoop } from './graph/faces';
+import { FindingSink, fmt, THROWN_PIECE } from './checks/findings';
+import { loadClipper, loadedClipper } from './geometry/polygons';
+import { LoopShapes } from './shapes/loop-shapes';
+import { describeLoop } from './shapes/loops';
+import { nestLoops } from './shapes/nesting';
+import { buildParts } from './shapes/parts';
+import { ProgramChecks } from './checks/program-checks';
+import { scanMoves } from './pass/scan';
 import { resolveSettings } from './settings';
 import type { AnalysisInput, AnalysisPart, AnalysisResult, SheetSpec, ToolSpec } from './types';
 
 export type * from './types';
 export { DEFAULT_SETTINGS, resolveSettings, type AnalysisSettings } from './settings';
-export { vacuumLateralHoldN, vacuumNormalForceN } from './hold';
-export { PlungePoints } from './plunge-points';
+export { vacuumLateralHoldN, vacuumNormalForceN } from './checks/hold';
+export { PlungePoints } from './checks/plunge-points';
 
 export const ANALYSIS_NOTE =
   'These checks are an aid, not a guarantee: the operator, the machine\'s manual, the shop\'s safety rules and local codes decide whether a program is safe to run.';

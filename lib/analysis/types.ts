@@ -1,6 +1,6 @@
 // Input and output shapes of the through-cut and program checks (lib/analysis). Lengths mm,
 // areas mm², forces N, pressure kPa below atmosphere.
-import type { PlungePoints } from './plunge-points';
+import type { PlungePoints } from './checks/plunge-points';
 import type { AnalysisSettings } from './settings';
 
 export type HoldDownMethod = 'vacuum' | 'tape-glue' | 'clamps' | 'tabs' | 'skin';

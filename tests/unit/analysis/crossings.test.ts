@@ -4,8 +4,8 @@
 // opposite sides of the other). Integer coordinates keep the predicate exact; a small grid
 // makes shared ends, touches and collinear overlaps common.
 import { describe, expect, it } from 'vitest';
-import { CutGraph } from '@/lib/analysis/cut-graph';
-import { findCrossings } from '@/lib/analysis/crossings';
+import { CutGraph } from '@/lib/analysis/graph/cut-graph';
+import { findCrossings } from '@/lib/analysis/graph/crossings';
 
 const THROUGH_Z = -17.95;
 

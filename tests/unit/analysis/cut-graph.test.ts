@@ -4,10 +4,10 @@
 // answers for small drawings (a square has 4 edges and 4 vertices; two diagonals of a square
 // cross at its centre, elementary geometry).
 import { describe, expect, it } from 'vitest';
-import { findCrossings } from '@/lib/analysis/crossings';
-import { CutGraph } from '@/lib/analysis/cut-graph';
-import { extractLoops, prune } from '@/lib/analysis/faces';
-import { KeyTable } from '@/lib/analysis/key-table';
+import { findCrossings } from '@/lib/analysis/graph/crossings';
+import { CutGraph } from '@/lib/analysis/graph/cut-graph';
+import { extractLoops, prune } from '@/lib/analysis/graph/faces';
+import { KeyTable } from '@/lib/analysis/graph/key-table';
 
 const THROUGH_Z = -17.95;
 

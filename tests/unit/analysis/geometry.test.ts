@@ -11,7 +11,7 @@ import { analyze } from '@/lib/analysis';
 import {
   differencePaths, offsetPaths, pathAreaMm2, pathsAreaMm2, pointInPath, pointInRing, ringAreaMm2, ringPerimeterMm, ringToPath, toPath, toRing,
   type Path, type Paths,
-} from '@/lib/analysis/geometry';
+} from '@/lib/analysis/geometry/polygons';
 import { ProgramWriter } from './support/program';
 import { job } from './support/jobs';
 

@@ -1,7 +1,7 @@
 // Vacuum hold as pressure × area with NIST SP 811 units, and the hold verdict of each method.
 import { describe, expect, it } from 'vitest';
 import { analyze, DEFAULT_SETTINGS, vacuumLateralHoldN, vacuumNormalForceN } from '@/lib/analysis';
-import { freedPieceHeld, freedPieceHold } from '@/lib/analysis/hold';
+import { freedPieceHeld, freedPieceHold } from '@/lib/analysis/checks/hold';
 import { MM_PER_IN, N_PER_LBF, PA_PER_INHG, PA_PER_PSI } from '@/lib/analysis/units';
 import type { HoldDownMethod } from '@/lib/analysis';
 import { ProgramWriter } from './support/program';

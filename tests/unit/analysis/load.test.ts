@@ -10,7 +10,7 @@ describe('loadAnalysis', () => {
   it('analyze() and the geometry helpers throw before it, and work after it; one shared promise', async () => {
     vi.resetModules();
     const analysis = await import('@/lib/analysis');
-    const geometry = await import('@/lib/analysis/geometry');
+    const geometry = await import('@/lib/analysis/geometry/polygons');
     const w = new ProgramWriter();
     w.tool = 9;
     w.rect(0, 0, 100, 50, [-18.3]);

@@ -3,7 +3,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyze, type HoldDownMethod } from '@/lib/analysis';
-import { pathAreaMm2, toPath } from '@/lib/analysis/geometry';
+import { pathAreaMm2, toPath } from '@/lib/analysis/geometry/polygons';
 import { ProgramWriter, transformMoves } from './support/program';
 import { job } from './support/jobs';
 

@@ -5,16 +5,16 @@
 // area-preserving arc flattening (areaRadius) encloses exactly the sector's area r²θ/2.
 import { describe, expect, it } from 'vitest';
 import { analyze } from '@/lib/analysis';
-import { extractLoops, prune } from '@/lib/analysis/faces';
-import { FindingSink } from '@/lib/analysis/findings';
-import { areaRadius, LoopShapes, placePoints } from '@/lib/analysis/loop-shapes';
-import { describeLoop } from '@/lib/analysis/loops';
-import { loopNode } from '@/lib/analysis/nesting';
-import { PartShapes } from '@/lib/analysis/parts';
-import { ProgramChecks } from '@/lib/analysis/program-checks';
-import { scanMoves } from '@/lib/analysis/scan';
+import { extractLoops, prune } from '@/lib/analysis/graph/faces';
+import { FindingSink } from '@/lib/analysis/checks/findings';
+import { areaRadius, LoopShapes, placePoints } from '@/lib/analysis/shapes/loop-shapes';
+import { describeLoop } from '@/lib/analysis/shapes/loops';
+import { loopNode } from '@/lib/analysis/shapes/nesting';
+import { PartShapes } from '@/lib/analysis/shapes/parts';
+import { ProgramChecks } from '@/lib/analysis/checks/program-checks';
+import { scanMoves } from '@/lib/analysis/pass/scan';
 import { resolveSettings } from '@/lib/analysis/settings';
-import type { LoopInfo } from '@/lib/analysis/loops';
+import type { LoopInfo } from '@/lib/analysis/shapes/loops';
 import type { MoveList } from '@/lib/gcode/move-list';
 import { job } from './support/jobs';
 import { ProgramWriter } from './support/program';

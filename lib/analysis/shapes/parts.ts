@@ -5,14 +5,14 @@
 // Loops that repeat (a nest of copies) reuse the Clipper results of the first copy
 // (shape-cache); a slug's exact area is worked out only when its verdict or its finding's
 // text needs it, from the bounds A − r·P ≤ slug ≤ A of the hole's interior A and perimeter P.
-import { FindingSink, fmt, THROWN_PIECE } from './findings';
-import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, SCALE, type Paths } from './geometry';
-import { freedPieceHeld, freedPieceHold } from './hold';
+import { FindingSink, fmt, THROWN_PIECE } from '../checks/findings';
+import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, SCALE, type Paths } from '../geometry/polygons';
+import { freedPieceHeld, freedPieceHold } from '../checks/hold';
 import type { LoopNode } from './nesting';
 import type { LoopShape } from './loop-shapes';
 import { hashNumbers, ScratchKey, ShapeCache, translatePath, type ShapeKey } from './shape-cache';
-import type { AnalysisSettings } from './settings';
-import type { AnalysisPart, BBox, HoldDownMethod } from './types';
+import type { AnalysisSettings } from '../settings';
+import type { AnalysisPart, BBox, HoldDownMethod } from '../types';
 
 /** below this a "part" is only kerf: nothing is left between the cuts */
 const MIN_PART_AREA_MM2 = 0.5;

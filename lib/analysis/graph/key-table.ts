@@ -18,7 +18,7 @@
 // full. A slot is the pair's 32-bit hash with its low bit set (0 marks an empty slot, so a new
 // table needs no filling) and the entry's index; keys and ids sit in entry arrays filled in
 // insertion order, read only when the hashes match.
-import { grownI32 } from './typed-arrays';
+import { grownI32 } from '../typed-arrays';
 
 const PAGE = 64;
 const PAGE_LIMIT = 48;

@@ -2,7 +2,7 @@
 // a nest's edges are arcs, and five columns of doubles over every edge would be mostly zeros
 // (12 MB more memory on the generated 1,000,000-line nest). An edge's slot is CutGraph.eArc[e];
 // slot 0 belongs to every straight edge and stays all zeros, so `r[slot] > 0` tells an arc.
-import { grownF64 } from './typed-arrays';
+import { grownF64 } from '../typed-arrays';
 
 export class EdgeArcs {
   /** centre */

@@ -3,7 +3,7 @@
 // band's top, and the rises between two through cuts of one pass (tabs), which are held back
 // until the tool comes down through again and dropped if it leaves the stock first.
 import type { CutGraph } from './cut-graph';
-import { grownF64 } from './typed-arrays';
+import { grownF64 } from '../typed-arrays';
 
 export class BandCollector {
   private armed = false;

@@ -4,9 +4,9 @@
 // freed parts in a coarse grid so that each move tests only the parts under it.
 import { MoveKind, type MoveList } from '@/lib/gcode/move-list';
 import { THROWN_PIECE, type FindingSink } from './findings';
-import { pointInRegion } from './geometry';
-import { cellOf } from './nesting';
-import type { BuiltPart } from './parts';
+import { pointInRegion } from '../geometry/polygons';
+import { cellOf } from '../shapes/nesting';
+import type { BuiltPart } from '../shapes/parts';
 
 export function checkCutOrder(moves: MoveList, parts: BuiltPart[], stockTopZ: number, toleranceMm: number, sink: FindingSink): void {
   const freed = parts.filter((p) => p.freedMove >= 0);

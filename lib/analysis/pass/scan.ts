@@ -2,10 +2,10 @@
 // chords near the sheet bottom to the cut graph and every motion to the program checks, and
 // notes for each tool the first move that cut through (for the sheet-lift check).
 import { MoveFlag, MoveKind, type MoveList } from '@/lib/gcode/move-list';
-import { ArcChords } from './arc';
-import { BandCollector } from './band';
-import { CutGraph, SUB_ARC_RAD } from './cut-graph';
-import type { ProgramChecks } from './program-checks';
+import { ArcChords } from './arc-chords';
+import { BandCollector } from '../graph/band';
+import { CutGraph, SUB_ARC_RAD } from '../graph/cut-graph';
+import type { ProgramChecks } from '../checks/program-checks';
 
 // The kinds and flags as plain numbers: read through the import on every move, each access is a
 // call to the module loader's export getter, which V8 does not inline (tens of ms per pass).

@@ -2,11 +2,11 @@
 // a loop inside nothing, or inside a hole, bounds a part; a loop inside a part is a hole.
 // Two loops so close that the kerf leaves no material between them (a finishing pass beside
 // a roughing pass) are one cut and are merged.
-import { nearRing, pointInRing, SCALE, type Path } from './geometry';
+import { nearRing, pointInRing, SCALE, type Path } from '../geometry/polygons';
 import type { LoopShape } from './loop-shapes';
 import { AREA_CHORD_MM, type LoopInfo } from './loops';
-import { grownI32 } from './typed-arrays';
-import type { BBox } from './types';
+import { grownI32 } from '../typed-arrays';
+import type { BBox } from '../types';
 
 // a module-level copy: an imported binding is read through an accessor on every use
 const GRID = SCALE;

@@ -7,9 +7,9 @@
 // chords) are drawn once per distinct shape. Two copies whose vertices round to the same
 // micrometres get the same ring, to the micrometre: below the chain tolerance that snaps the
 // graph's vertices in the first place.
-import type { CutGraph } from './cut-graph';
-import type { GraphLoop } from './faces';
-import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from './geometry';
+import type { CutGraph } from '../graph/cut-graph';
+import type { GraphLoop } from '../graph/faces';
+import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from '../geometry/polygons';
 import { ScratchKey, ShapeCache } from './shape-cache';
 
 // a module-level copy: an imported binding is read through an accessor on every use in the hot loops

@@ -7,7 +7,7 @@ import {
   ClipperError, ClipType, EndType, JoinType, loadNativeClipperLibInstanceAsync, NativeClipperLibRequestedFormat, PolyFillType,
   type ClipParams, type ClipperLibWrapper, type IntPoint, type Path, type Paths,
 } from 'js-angusj-clipper';
-import type { BBox } from './types';
+import type { BBox } from '../types';
 import { len2 } from './vec';
 
 /** integer units per mm (1 µm resolution) */

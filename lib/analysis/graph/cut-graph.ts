@@ -10,8 +10,8 @@
 // loops found), and tabs, ramps and helices become straight chords.
 import { EdgeArcs } from './edge-arcs';
 import { KeyTable } from './key-table';
-import { len2 } from './vec';
-import { grownF64, grownI32 } from './typed-arrays';
+import { len2 } from '../geometry/vec';
+import { grownF64, grownI32 } from '../typed-arrays';
 
 const KEY_OFFSET = 2 ** 24;
 const KEY_LIMIT = KEY_OFFSET - 1;

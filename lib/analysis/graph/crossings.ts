@@ -6,7 +6,7 @@
 // Lengths are written out (√(dx² + dy²), as vec.len2): an imported function is called through
 // the module loader's export getter, which V8 does not inline in these loops.
 import type { CutGraph } from './cut-graph';
-import { grownI32 } from './typed-arrays';
+import { grownI32 } from '../typed-arrays';
 
 export interface Crossing {
   x: number;

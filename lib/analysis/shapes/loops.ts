@@ -1,10 +1,10 @@
 // What each closed loop of the cut graph is: cut through all round (frees what it encloses),
 // through except for raised spans (tabs: count, length at the base, height above the bottom),
 // or nowhere through but within the skin band (an onion skin of the thinnest layer left).
-import type { CutGraph } from './cut-graph';
-import type { GraphLoop } from './faces';
+import type { CutGraph } from '../graph/cut-graph';
+import type { GraphLoop } from '../graph/faces';
 import { LoopShapes, type LoopShape } from './loop-shapes';
-import type { TabDetail } from './types';
+import type { TabDetail } from '../types';
 
 export interface LoopInfo {
   /** the outline, shared with congruent copies, and where this copy's origin sits (grid units) */

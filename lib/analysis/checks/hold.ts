@@ -5,9 +5,9 @@
 // Tape and glue hold any part; clamps or screws hold the sheet, not what is cut free of it;
 // "tabs" and "skin" hold only through what the program leaves.
 import { fmt } from './findings';
-import type { AnalysisSettings } from './settings';
-import { MM2_PER_M2 } from './units';
-import type { HoldBy, HoldDownMethod } from './types';
+import type { AnalysisSettings } from '../settings';
+import { MM2_PER_M2 } from '../units';
+import type { HoldBy, HoldDownMethod } from '../types';
 
 /** normal force of a vacuum table on a part, N: ΔP [kPa] × A [mm²] */
 export function vacuumNormalForceN(vacuumKpa: number, areaMm2: number): number {

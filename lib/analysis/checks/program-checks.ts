@@ -5,7 +5,7 @@
 import type { FindingSink } from './findings';
 import { fmt, THROWN_PIECE } from './findings';
 import { PlungePoints } from './plunge-points';
-import type { MachineLimits, SheetSpec } from './types';
+import type { MachineLimits, SheetSpec } from '../types';
 
 const EPS = 1e-6;
 

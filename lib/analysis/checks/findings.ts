@@ -2,7 +2,7 @@
 // on ten thousand lines gives a readable list; the rest are counted for the summary.
 // A finding's message is a full sentence (or several) that leaves its own line number to the
 // finding's `line`, which every listing shows beside it; it names other lines where they matter.
-import type { Finding, FindingKind, FindingSeverity } from './types';
+import type { Finding, FindingKind, FindingSeverity } from '../types';
 
 export class FindingSink {
   readonly findings: Finding[] = [];

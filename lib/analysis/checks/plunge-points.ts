@@ -3,8 +3,8 @@
 // object with four boxed numbers for each would sit on the heap through every collection the
 // analysis pays for. Read them with at() or for…of; JSON.stringify and toArray() give the
 // list of PlungePoint objects the stored estimate and the CLI print.
-import { grownF64, grownI32 } from './typed-arrays';
-import type { PlungePoint } from './types';
+import { grownF64, grownI32 } from '../typed-arrays';
+import type { PlungePoint } from '../types';
 
 const RAMP = 1, RAPID = 2;
 

@@ -5,7 +5,7 @@
 // the part's origin, and the radii. The key is hashed, and a hit is compared in full, so a hit
 // is always the same shape at another place (Clipper's answer there could differ only in its
 // 1 µm rounding).
-import type { Path } from './geometry';
+import type { Path } from '../geometry/polygons';
 
 export interface ShapeKey {
   hash: number;
