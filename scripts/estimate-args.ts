@@ -1,7 +1,9 @@
 // Command-line arguments of `npm run estimate`, checked into one typed object or one message.
 import { parseArgs } from 'node:util';
+import { HOLD_DOWNS } from '@/lib/validation/enums';
 
-export const HOLD_METHODS = ['vacuum', 'tape-glue', 'clamps', 'tabs', 'skin'] as const;
+/** the hold-down methods --hold takes: the one list in lib/validation/enums.ts */
+export const HOLD_METHODS = HOLD_DOWNS;
 export type HoldMethod = (typeof HOLD_METHODS)[number];
 
 export interface EstimateArgs {

@@ -28,7 +28,8 @@ import type { MoveList } from '@/lib/gcode/move-list';
 import { findCrossings } from './graph/crossings';
 import { checkCutOrder } from './checks/cut-order';
 import { extractLoops, prune, type GraphLoop } from './graph/faces';
-import { FindingSink, fmt, THROWN_PIECE } from './checks/findings';
+import { FindingSink, fmt } from './checks/findings';
+import { sheetLift } from './checks/sheet-lift';
 import { loadClipper, loadedClipper } from './geometry/polygons';
 import { LoopShapes } from './shapes/loop-shapes';
 import { describeLoop } from './shapes/loops';
@@ -37,7 +38,9 @@ import { buildParts } from './shapes/parts';
 import { ProgramChecks } from './checks/program-checks';
 import { scanMoves } from './pass/scan';
 import { resolveSettings } from './settings';
-import type { AnalysisInput, AnalysisPart, AnalysisResult, SheetSpec, ToolSpec } from './types';
+import type { CutGraph } from './graph/cut-graph';
+import type { AnalysisSettings } from './settings';
+import type { AnalysisInput, AnalysisPart, AnalysisResult, HoldDownMethod, SheetSpec, ToolSpec } from './types';
 
 export type * from './types';
 export { DEFAULT_SETTINGS, resolveSettings, type AnalysisSettings } from './settings';
@@ -79,38 +82,12 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
     tabMaxLengthMm: s.tabMaxLengthMm,
   }, checks);
 
-  for (const [t, line] of scan.toolFirstLine) {
-    if (tools.has(t)) continue;
-    sink.add('unknown-tool', 'warning', line, t === 0
-      ? 'Cutting moves from this line on run with no tool selected (T0): the checks take its diameter as 0 mm, so kerf, plunge and hold results for those cuts are approximate.'
-      : `Tool T${t}, cutting from this line on, is not in the tool library: the checks take its diameter as 0 mm, so kerf, plunge and hold results for it are approximate. Add it to the library.`);
-  }
-
-  let parts: AnalysisPart[] = [];
-  let holes = 0;
-  let looseSlugs = 0;
-  if (scan.graph && sheet && bottomZ !== null && topZ !== null) {
-    const g = scan.graph;
-    g.zipOverlaps();
-    const pruned = prune(g);
-    const { crossed, crossings } = findCrossings(g, s.chainToleranceMm, pruned.alive);
-    for (const c of crossings) {
-      const la = moves.line[g.eFirstNear[c.edgeA]], lb = moves.line[g.eFirstNear[c.edgeB]];
-      sink.add('crossing-cuts', 'warning', Math.max(la, lb),
-        `${la === lb ? 'This through cut crosses itself' : `This through cut crosses the one at line ${Math.min(la, lb)}`} at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)}: two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
-    }
-    const shapes = new LoopShapes();
-    const loops = extractLoops(g, pruned)
-      .filter((l) => !touchesCrossing(l, crossed))
-      .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.chordToleranceMm, shapes));
-    const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
-    const built = buildParts(nodes, { method: input.holdDown, vacuumKpa, settings: s, line: moves.line }, sink);
-    holes = built.holes;
-    looseSlugs = built.looseSlugs;
-    checkCutOrder(moves, built.parts, topZ, tol, sink);
-    parts = built.parts.map((b) => b.part).sort((a, b) => a.id - b.id);
-    sheetLift(sheet, input, tools, scan.firstThroughByTool, moves.line, s.thinSheetMm, sink);
-  }
+  unknownTools(scan.toolFirstLine, tools, sink);
+  const through = sheet && bottomZ !== null && topZ !== null && scan.graph
+    ? throughCuts(moves, scan.graph, { bottomZ, topZ, holdDown: input.holdDown, vacuumKpa, toolDiameter }, s, sink)
+    : null;
+  const parts = through?.parts ?? [];
+  if (through && sheet) sheetLift(sheet, input.holdDown, tools, scan.firstThroughByTool, moves.line, s.thinSheetMm, sink);
 
   const findings = sink.sorted();
   const count = (sev: string) => findings.filter((f) => f.severity === sev).length;
@@ -123,8 +100,8 @@ export function analyze(moves: MoveList, input: AnalysisInput): AnalysisResult {
       parts: parts.length,
       partsHeld: parts.filter((p) => p.held).length,
       partsUnheld: parts.filter((p) => !p.held).length,
-      holes,
-      looseSlugs,
+      holes: through?.holes ?? 0,
+      looseSlugs: through?.looseSlugs ?? 0,
       errors: count('error'),
       warnings: count('warning'),
       infos: count('info'),
@@ -159,14 +136,45 @@ function validSheet(sheet: SheetSpec | null, sink: FindingSink): SheetSpec | nul
   return sheet;
 }
 
-/** up-cut spiral tools pull a thin sheet held only at its edges up off the table */
-function sheetLift(sheet: SheetSpec, input: AnalysisInput, tools: Map<number, ToolSpec>, firstThrough: Map<number, number>, line: Uint32Array, thinSheetMm: number, sink: FindingSink): void {
-  if (sheet.thicknessMm > thinSheetMm || (input.holdDown !== 'clamps' && input.holdDown !== 'tabs' && input.holdDown !== null)) return;
-  for (const [t, move] of firstThrough) {
-    const kind = (tools.get(t)?.kind ?? '').toLowerCase().replace(/[^a-z]/g, '');
-    if (kind !== 'upcut' && kind !== 'upspiral') continue;
-    const held = input.holdDown === 'clamps' ? 'clamps at the sheet edge' : input.holdDown === 'tabs' ? 'tabs only' : 'only the tabs or skin the program leaves (no hold-down was given)';
-    sink.add('sheet-lift', 'warning', line[move],
-      `Up-cut tool T${t} cuts through the ${fmt(sheet.thicknessMm, 1)} mm sheet from this line on with ${held} to hold it: an up-cut bit pulls a thin sheet up in the middle, so tabs can fail and parts kick loose. ${THROWN_PIECE} Use a down-cut or compression tool, vacuum, or tape and glue.`);
+function unknownTools(toolFirstLine: Map<number, number>, tools: Map<number, ToolSpec>, sink: FindingSink): void {
+  for (const [t, line] of toolFirstLine) {
+    if (tools.has(t)) continue;
+    sink.add('unknown-tool', 'warning', line, t === 0
+      ? 'Cutting moves from this line on run with no tool selected (T0): the checks take its diameter as 0 mm, so kerf, plunge and hold results for those cuts are approximate.'
+      : `Tool T${t}, cutting from this line on, is not in the tool library: the checks take its diameter as 0 mm, so kerf, plunge and hold results for it are approximate. Add it to the library.`);
   }
+}
+
+interface ThroughCutJob {
+  bottomZ: number;
+  topZ: number;
+  holdDown: HoldDownMethod | null;
+  vacuumKpa: number;
+  toolDiameter: (tool: number) => number;
+}
+
+/**
+ * Stages 2–8 of the table above: the cut graph the move pass filled → crossings → closed loops
+ * → their shapes → nesting → parts with hold verdicts → the cut-order check.
+ */
+function throughCuts(moves: MoveList, g: CutGraph, job: ThroughCutJob, s: AnalysisSettings, sink: FindingSink): { parts: AnalysisPart[]; holes: number; looseSlugs: number } {
+  const { bottomZ, topZ, toolDiameter } = job;
+  const tol = s.bottomToleranceMm;
+  g.zipOverlaps();
+  const pruned = prune(g);
+  const { crossed, crossings } = findCrossings(g, s.chainToleranceMm, pruned.alive);
+  for (const c of crossings) {
+    const la = moves.line[g.eFirstNear[c.edgeA]], lb = moves.line[g.eFirstNear[c.edgeB]];
+    sink.add('crossing-cuts', 'warning', Math.max(la, lb),
+      `${la === lb ? 'This through cut crosses itself' : `This through cut crosses the one at line ${Math.min(la, lb)}`} at X ${fmt(c.x, 2)}, Y ${fmt(c.y, 2)}: two profiles overlap or one runs through another part. The loops there are left out of the part list; check the nest.`);
+  }
+  const shapes = new LoopShapes();
+  const loops = extractLoops(g, pruned)
+    .filter((l) => !touchesCrossing(l, crossed))
+    .map((l) => describeLoop(g, l, bottomZ, bottomZ + tol, moves.line, s.chordToleranceMm, shapes));
+  const nodes = nestLoops(loops, (t) => toolDiameter(t) / 2, s.chainToleranceMm);
+  const built = buildParts(nodes, { method: job.holdDown, vacuumKpa: job.vacuumKpa, settings: s, line: moves.line }, sink);
+  checkCutOrder(moves, built.parts, topZ, tol, sink);
+  const parts = built.parts.map((b) => b.part).sort((a, b) => a.id - b.id);
+  return { parts, holes: built.holes, looseSlugs: built.looseSlugs };
 }

@@ -1,9 +1,11 @@
 // Input and output shapes of the through-cut and program checks (lib/analysis). Lengths mm,
 // areas mm², forces N, pressure kPa below atmosphere.
+import type { HOLD_DOWNS } from '@/lib/validation/enums';
 import type { PlungePoints } from './checks/plunge-points';
 import type { AnalysisSettings } from './settings';
 
-export type HoldDownMethod = 'vacuum' | 'tape-glue' | 'clamps' | 'tabs' | 'skin';
+/** the hold-down methods a job can name: the one list is HOLD_DOWNS in lib/validation/enums.ts */
+export type HoldDownMethod = (typeof HOLD_DOWNS)[number];
 export type HoldBy = 'tabs' | 'skin' | 'vacuum' | 'tape-glue' | 'none';
 export type FindingSeverity = 'error' | 'warning' | 'info';
 export type FindingKind =
