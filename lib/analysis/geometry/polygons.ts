@@ -258,7 +258,15 @@ export function pathsGridBox(paths: Paths): number[] | null {
 
 export function pathsBBox(paths: Paths): BBox | null {
   const b = pathsGridBox(paths);
-  return b && { minX: b[0] / SCALE, minY: b[1] / SCALE, maxX: b[2] / SCALE, maxY: b[3] / SCALE };
+  return b && gridBoxMm(b, 0, 0);
+}
+
+/**
+ * The one conversion of a grid box (minX, minY, maxX, maxY in grid units, relative to the grid
+ * point ox, oy) to the box in mm that leaves the module: grid boxes stay inside the shapes.
+ */
+export function gridBoxMm(b: ArrayLike<number>, ox: number, oy: number): BBox {
+  return { minX: (b[0] + ox) / SCALE, minY: (b[1] + oy) / SCALE, maxX: (b[2] + ox) / SCALE, maxY: (b[3] + oy) / SCALE };
 }
 
 export function pathPerimeterMm(path: Path): number {

@@ -8,6 +8,7 @@
 // Closed loops are then read off this graph (faces.ts), whichever pass made them. A flat arc
 // stays an arc: it becomes sub-arcs of at most 45° (few edges, exact chords made only for the
 // loops found), and tabs, ramps and helices become straight chords.
+import { vertexDegrees, vertexEdges } from './adjacency';
 import { EdgeArcs } from './edge-arcs';
 import { KeyTable } from './key-table';
 import { len2 } from '../geometry/vec';
@@ -271,17 +272,12 @@ export class CutGraph {
     const V = this.vCount;
     const E = this.eCount;
     if (E === 0) return;
-    const deg = new Int32Array(V);
-    for (let e = 0; e < E; e++) { deg[this.eu[e]]++; deg[this.ev[e]]++; }
+    const deg = vertexDegrees(this.eu, this.ev, V, E);
     // no vertex where three edges meet: no pass overlaps another, and the graph stays as it is
     let branchPoints = false;
     for (let v = 0; v < V && !branchPoints; v++) if (deg[v] >= 3) branchPoints = true;
     if (!branchPoints) return;
-    const start = new Int32Array(V + 1);
-    for (let v = 0; v < V; v++) start[v + 1] = start[v] + deg[v];
-    const fill = start.slice(0, V);
-    const csr = new Int32Array(2 * E);
-    for (let e = 0; e < E; e++) { csr[fill[this.eu[e]]++] = e; csr[fill[this.ev[e]]++] = e; }
+    const { start, adj: csr } = vertexEdges(this.eu, this.ev, deg, V, E);
     const overlay = new Map<number, number[]>();
     const adjacency = (v: number): number[] => {
       let list = overlay.get(v);

@@ -5,6 +5,7 @@
 // Most loops of a nest are simple cycles (two live edges at every vertex): there the turn is
 // to the other edge, with no angles, and the face on the other side is the same cycle walked
 // back, so it is read off the first walk instead of walked again.
+import { vertexDegrees, vertexEdges } from './adjacency';
 import type { CutGraph } from './cut-graph';
 
 export interface GraphLoop {
@@ -33,19 +34,8 @@ export function prune(g: CutGraph): PrunedGraph {
   const V = g.vertexCount;
   const E = g.edgeCount;
   const eu = g.eu, ev = g.ev;
-  const deg = new Int32Array(V);
-  for (let e = 0; e < E; e++) {
-    deg[eu[e]]++;
-    deg[ev[e]]++;
-  }
-  const start = new Int32Array(V + 1);
-  for (let v = 0; v < V; v++) start[v + 1] = start[v] + deg[v];
-  const fill = start.slice(0, V);
-  const adj = new Int32Array(2 * E);
-  for (let e = 0; e < E; e++) {
-    adj[fill[eu[e]]++] = e;
-    adj[fill[ev[e]]++] = e;
-  }
+  const deg = vertexDegrees(eu, ev, V, E);
+  const { start, adj } = vertexEdges(eu, ev, deg, V, E);
   // prune dangling ends
   const alive = new Uint8Array(E).fill(1);
   const stack: number[] = [];

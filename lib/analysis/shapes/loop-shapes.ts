@@ -10,10 +10,11 @@
 import type { CutGraph } from '../graph/cut-graph';
 import type { GraphLoop } from '../graph/faces';
 import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from '../geometry/polygons';
-import { ScratchKey, ShapeCache } from './shape-cache';
+import { hashEnd, hashMix, hashStart, ScratchKey, ShapeCache } from './shape-cache';
 
-// a module-level copy: an imported binding is read through an accessor on every use in the hot loops
+// module-level copies: an imported binding is read through an accessor on every use in the hot loops
 const GRID = SCALE;
+const mix = hashMix;
 
 /** an outline shared by congruent copies (compared by identity) */
 export interface LoopShape {
@@ -73,8 +74,8 @@ export class LoopShapes {
     const { verts, edges, start: first, length: n } = loop;
     const key = this.scratch.data(6 * n);
     const vx = g.vx, vy = g.vy, eArc = g.eArc, aR = g.arcs.r, aSweep = g.arcs.sweep, aCx = g.arcs.cx, aCy = g.arcs.cy, eu = g.eu;
-    // FNV-style over the whole numbers of the vertices and radii (the rest is compared on a hit)
-    let h = 0x811c9dc5 ^ n;
+    // the hash over the whole numbers of the vertices and radii (the rest is compared on a hit)
+    let h = hashStart(n);
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
       const v = verts[first + i], e = edges[first + i];
       const dx = Math.round(vx[v] * GRID) - ox, dy = Math.round(vy[v] * GRID) - oy;
@@ -94,9 +95,9 @@ export class LoopShapes {
         key[o + 5] = 0;
       }
       key[o + 2] = r;
-      h = Math.imul(Math.imul(Math.imul(h ^ dx, 0x01000193) ^ dy, 0x01000193) ^ r, 0x01000193);
+      h = mix(mix(mix(h, dx), dy), r);
     }
-    this.hash = h & 0x3fffffff; // a small integer: Map keys stay on the fast path
+    this.hash = hashEnd(h);
     return key;
   }
 }

@@ -2,7 +2,7 @@
 // a loop inside nothing, or inside a hole, bounds a part; a loop inside a part is a hole.
 // Two loops so close that the kerf leaves no material between them (a finishing pass beside
 // a roughing pass) are one cut and are merged.
-import { nearRing, pointInRing, SCALE, type Path } from '../geometry/polygons';
+import { gridBoxMm, nearRing, pointInRing, SCALE, type Path } from '../geometry/polygons';
 import type { LoopShape } from './loop-shapes';
 import { AREA_CHORD_MM, type LoopInfo } from './loops';
 import { grownI32 } from '../typed-arrays';
@@ -149,8 +149,7 @@ class Node implements LoopNode {
 
   get bbox(): BBox {
     if (this.box) return this.box;
-    const b = this.shape.box, ox = this.ox, oy = this.oy;
-    return (this.box = { minX: (b[0] + ox) / GRID, minY: (b[1] + oy) / GRID, maxX: (b[2] + ox) / GRID, maxY: (b[3] + oy) / GRID });
+    return (this.box = gridBoxMm(this.shape.box, this.ox, this.oy));
   }
 
   get path(): Path {

@@ -6,7 +6,7 @@
 // (shape-cache); a slug's exact area is worked out only when its verdict or its finding's
 // text needs it, from the bounds A − r·P ≤ slug ≤ A of the hole's interior A and perimeter P.
 import { FindingSink, fmt, THROWN_PIECE } from '../checks/findings';
-import { differencePaths, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, SCALE, type Paths } from '../geometry/polygons';
+import { differencePaths, gridBoxMm, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, type Paths } from '../geometry/polygons';
 import { freedPieceHeld, freedPieceHold } from '../checks/hold';
 import type { LoopNode } from './nesting';
 import type { LoopShape } from './loop-shapes';
@@ -56,7 +56,7 @@ class PlacedShape {
 
   constructor(private readonly rel: RelShape, private readonly ox: number, private readonly oy: number) {
     const b = rel.box;
-    this.bbox = b && { minX: (b[0] + ox) / SCALE, minY: (b[1] + oy) / SCALE, maxX: (b[2] + ox) / SCALE, maxY: (b[3] + oy) / SCALE };
+    this.bbox = b && gridBoxMm(b, ox, oy);
   }
 
   get outlineAreas(): number[] { return this.rel.outlineAreas; }
