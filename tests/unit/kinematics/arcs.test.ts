@@ -2,10 +2,9 @@
 // centripetal limit √(a·r). Chord count n = ⌈θ / (2·acos(1 − e/r))⌉ and the check values are
 // computed in docs/references.md (circle geometry: sagitta h = r(1 − cos(φ/2))).
 import { describe, expect, it } from 'vitest';
-import { blockDurationS, chordCount, estimate, restToRestDurationS } from '@/lib/kinematics';
+import { chordCount, estimate } from '@/lib/kinematics';
+import { trapezoidS } from './support/closed-forms';
 import { Moves, testProfile } from './support/moves';
-
-const chordsLength = (r: number, sweep: number, n: number) => n * 2 * r * Math.sin(Math.abs(sweep) / (2 * n));
 
 describe('chord count (docs/references.md, computed)', () => {
   it('r = 10, e = 0.01, full circle → 71', () => expect(chordCount(10, 2 * Math.PI, 0.01)).toBe(71));
@@ -20,19 +19,18 @@ describe('chord count (docs/references.md, computed)', () => {
 });
 
 describe('circles', () => {
-  it('a full circle limited by F: arc length / F plus the start and stop ramps', () => {
-    // r = 50 mm, F600 = 10 mm/s, a = 500: ramps of 0.1 mm fit in the first and last chord,
-    // whose directions are within φ/2 of ±Y (accel along them 500/cos(φ/2)); the centripetal
-    // limit √(500·50) = 158 mm/s and the corner speeds lie far above F.
-    // Chords are timed at the arc's length (F is along the path, NISTIR 6556 §2.1.2.5).
+  it('a full circle limited by F: 352 chords, arc length / F plus the start and stop ramps = 31.435926 s', () => {
+    // r = 50 mm, e = 0.002: n = ⌈2π / (2·acos(1 − 0.002/50))⌉ = 352 chords. F600 = 10 mm/s,
+    // a = 500: ramps of v²/(2a) = 0.1 mm fit in the first and last chord, whose directions are
+    // within π/352 of ±Y (a along them 500/cos(π/352)); the centripetal limit √(500·50) =
+    // 158 mm/s and the corner speeds lie far above F. Chords are timed at the arc's length (F
+    // is along the path, NISTIR 6556 §2.1.2.5): 2π·50/10 + 10·cos(π/352)/500 = 31.435926 s.
     const p = testProfile({ chordToleranceMm: 0.002 });
     const m = new Moves({ x: 50, y: 0, z: 0 }).arcXY(0, 0, 2 * Math.PI, 600).build();
-    const n = chordCount(50, 2 * Math.PI, 0.002);
-    const aEnd = 500 / Math.cos(Math.PI / (2 * n));
     const e = estimate(m, p);
-    expect(e.totalSeconds).toBeCloseTo((2 * Math.PI * 50) / 10 + 10 / aEnd, 5);
-    expect(e.distanceMm.feed).toBeCloseTo(2 * Math.PI * 50, 9);
-    expect(e.blocks).toBe(n);
+    expect(e.totalSeconds).toBeCloseTo(31.435926, 6);
+    expect(e.distanceMm.feed).toBeCloseTo(314.159265, 6);
+    expect(e.blocks).toBe(352);
   });
 
   it('a full circle limited by √(a·r): r = 5, a = 500 → 50 mm/s although F asks 100', () => {
@@ -48,40 +46,47 @@ describe('circles', () => {
   });
 
   it('with a tiny corner tolerance the corners between chords bind: √(a_w·R) per corner (inscribed circle, a = v²/R)', () => {
-    // r = 50, e = 0.002: n chords, corner angle θ = π − φ, s = sin(θ/2) = cos(φ/2);
-    // δ = 1e-5 → R = δ·s/(1 − s) ≈ 0.25 mm ≪ r, so the corners, not √(a·r) = 158 mm/s, decide.
+    // r = 50, e = 0.002: 352 chords of d = 100π/352 mm, corner angle θ = π − φ, s = sin(θ/2) =
+    // cos(π/352); δ = 1e-5 → R = δ·s/(1 − s) ≈ 0.25 mm ≪ r, so the corners, not √(a·r) = 158
+    // mm/s, decide. Each chord runs corner to corner: a trapezoid from v_j to v_j; a_w (radial)
+    // and the chord's own acceleration lie in 500..500·√2 (closed forms written out in
+    // support/closed-forms.ts, not the planner's helpers)
     const p = testProfile({ chordToleranceMm: 0.002, cornerToleranceMm: 1e-5 });
     const m = new Moves({ x: 50, y: 0, z: 0 }).arcXY(0, 0, 2 * Math.PI, 6000).build();
-    const n = chordCount(50, 2 * Math.PI, 0.002);
+    const n = 352;
     const s = Math.cos(Math.PI / n);
     const R = (1e-5 * s) / (1 - s);
-    const L = 2 * Math.PI * 50;
+    const d = (2 * Math.PI * 50) / n;
     const e = estimate(m, p);
-    // each chord runs corner to corner: a trapezoid from v_j to v_j (Biagiotti & Melchiorri
-    // §3.2.2, from memory); a_w (radial) and the chord's own acceleration lie in 500..500·√2
-    const d = L / n;
-    const lo = n * blockDurationS(d, 100, 500 * Math.SQRT2, Math.sqrt(500 * Math.SQRT2 * R), Math.sqrt(500 * Math.SQRT2 * R));
-    const hi = n * blockDurationS(d, 100, 500, Math.sqrt(500 * R), Math.sqrt(500 * R));
+    const lo = n * trapezoidS(d, 100, 500 * Math.SQRT2, Math.sqrt(500 * Math.SQRT2 * R), Math.sqrt(500 * Math.SQRT2 * R));
+    const hi = n * trapezoidS(d, 100, 500, Math.sqrt(500 * R), Math.sqrt(500 * R));
     expect(e.totalSeconds).toBeGreaterThan(lo);
     expect(e.totalSeconds).toBeLessThan(hi + 0.2); // + start and stop ramps
     expect(e.totalSeconds).toBeGreaterThan(estimate(m, testProfile({ chordToleranceMm: 0.002 })).totalSeconds * 2);
   });
 
-  it('a helix is timed along its path: r = 10, 90°, rise 5 → 16.4845 mm (NISTIR 6556 §2.1.2.5; computed)', () => {
+  it('a helix is timed along its path: r = 10, 90°, rise 5 → 16.484542 mm, 1.667506 s at F600 (NISTIR 6556 §2.1.2.6; computed)', () => {
+    // length √((10·π/2)² + 5²) = 16.484542 mm; 1.648454 s at 10 mm/s without ramps. e = 0.003:
+    // 33 chords; the first and last run mostly along Y and X: |u| = 0.952612 on that axis, so a
+    // along them is 500/0.952617 = 524.872 mm/s², and the ramps add 2·v/(2a) = 0.019052 s
     const m = new Moves({ x: 10, y: 0, z: 0 }).arcXY(0, 0, Math.PI / 2, 600, 5).build();
     const e = estimate(m, testProfile());
-    expect(e.distanceMm.feed).toBeCloseTo(16.4845, 4);
-    // 1.6485 s at F600 without ramps (computed); the ramps add v/a at 500..500·√2 mm/s²
-    expect(e.totalSeconds).toBeGreaterThan(1.64845 + 10 / (500 * Math.SQRT2));
-    expect(e.totalSeconds).toBeLessThan(1.64845 + 10 / 500 + 1e-6);
+    expect(e.distanceMm.feed).toBeCloseTo(16.484542, 6);
+    expect(e.blocks).toBe(33);
+    expect(e.totalSeconds).toBeCloseTo(1.667506, 6);
   });
 
-  it('a clockwise arc (negative sweep) ends where the move list says and times like its mirror', () => {
-    const ccw = estimate(new Moves().rapid(20, 0, 0).arcXY(0, 0, Math.PI, 1200).build(), testProfile());
-    const cw = estimate(new Moves().rapid(20, 0, 0).arcXY(0, 0, -Math.PI, 1200).build(), testProfile());
-    expect(cw.totalSeconds).toBeCloseTo(ccw.totalSeconds, 9);
-    expect(cw.distanceMm.feed).toBeCloseTo(20 * Math.PI, 9);
-    expect(chordsLength(20, Math.PI, chordCount(20, Math.PI, 0.002))).toBeLessThan(20 * Math.PI); // chords alone would be shorter
-    expect(ccw.totalSeconds).toBeGreaterThan(restToRestDurationS(20, 100, 500)); // sanity: the rapid alone
+  it('a clockwise arc (negative sweep) ends where the move list says and times like its mirror: π + 20·cos(π/182)/500 s', () => {
+    // r = 20, half circle at F1200 (20 mm/s), e = 0.003: 91 chords; from rest (the dwell stops
+    // the rapid) to rest, the ramps run along chords within π/182 of ±Y
+    const arc = (sweep: number) => estimate(new Moves().rapid(20, 0, 0).dwell(0).arcXY(0, 0, sweep, 1200).build(), testProfile());
+    const ccw = arc(Math.PI);
+    const cw = arc(-Math.PI);
+    const arcS = 3.181587; // π + 0.04·cos(π/182)
+    expect(ccw.cumulativeS[2] - ccw.cumulativeS[1]).toBeCloseTo(arcS, 6);
+    expect(cw.cumulativeS[2] - cw.cumulativeS[1]).toBeCloseTo(arcS, 6);
+    expect(cw.distanceMm.feed).toBeCloseTo(62.831853, 6); // 20π
+    // the 20 mm rapid before it: 20 < v²/a = 2000 mm, so 2√(20/500) = 0.4 s
+    expect(cw.cumulativeS[0]).toBeCloseTo(0.4, 9);
   });
 });

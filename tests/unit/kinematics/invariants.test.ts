@@ -5,6 +5,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { estimate, limitAlong } from '@/lib/kinematics';
 import type { MachineProfile } from '@/lib/validation/machine-profile';
+import { alongS, restToRestS } from './support/closed-forms';
 import { Moves, testProfile } from './support/moves';
 
 type Step = { kind: 'feed' | 'rapid'; x: number; y: number; z: number; f: number } | { kind: 'arc'; sweep: number; r: number; f: number } | { kind: 'dwell'; s: number };
@@ -40,8 +41,7 @@ const profileArb: fc.Arbitrary<MachineProfile> = fc
     }),
   );
 
-function build(steps: Step[]) {
-  const b = new Moves();
+function build(steps: Step[], b = new Moves()) {
   let x = 0;
   let y = 0;
   for (const s of steps) {
@@ -80,6 +80,62 @@ describe('invariants (fast-check)', () => {
       }),
       { numRuns: 200 },
     );
+  });
+
+  it('time ≤ Σ each block’s rest-to-rest time + the fixed times (tool change, spin-up, dwells)', () => {
+    // Upper bound: a trapezoid entered or left above rest is never slower than the same block
+    // from rest to rest, and rest-to-rest time only grows as the speed or acceleration limit
+    // falls (closed forms in support/closed-forms.ts, written from docs/references.md §3, not the
+    // planner's helpers). Straight blocks take their exact limits; an arc's n chords (n =
+    // ⌈θ / (2·acos(1 − e/r))⌉, chord count of §3), each of length L/n, take lower bounds of
+    // theirs: speed min(F, √(a_plane·r), the smaller in-plane axis feed, (L/n)·R), acceleration
+    // the smaller in-plane axis limit.
+    let withArcs = 0;
+    let runs = 0;
+    fc.assert(
+      fc.property(programArb, profileArb, (steps, p) => {
+        runs++;
+        const m = build(steps, new Moves().toolChange(1).spindleStart());
+        let bound = p.toolChangeSeconds + p.spindleSpinUpSeconds;
+        const feed: [number, number, number] = [p.maxFeedMmPerMin.x / 60, p.maxFeedMmPerMin.y / 60, p.maxFeedMmPerMin.z / 60];
+        const rapid: [number, number, number] = [p.rapidMmPerMin.x / 60, p.rapidMmPerMin.y / 60, p.rapidMmPerMin.z / 60];
+        const accel: [number, number, number] = [p.accelMmPerS2.x, p.accelMmPerS2.y, p.accelMmPerS2.z];
+        const rate = p.maxBlocksPerS > 0 ? p.maxBlocksPerS : Infinity;
+        let [px, py, pz] = [0, 0, 0];
+        let i = 2; // after the tool change and the spindle start
+        let arcs = 0;
+        for (const s of steps) {
+          if (s.kind === 'dwell') bound += Math.fround(s.s);
+          else if (s.kind === 'arc') {
+            const r = s.r;
+            const sweep = Math.abs(s.sweep);
+            const n = sweep === 0 ? 1 : Math.max(1, Math.ceil(sweep / (2 * Math.acos(1 - p.chordToleranceMm / r)) - 1e-9));
+            const d = (r * sweep) / n;
+            const v = Math.min(s.f / 60, Math.sqrt(Math.min(accel[0], accel[1]) * r), Math.min(feed[0], feed[1]), d * rate);
+            if (d > 0) bound += n * restToRestS(d, v, Math.min(accel[0], accel[1]));
+            [px, py, pz] = [m.x[i], m.y[i], m.z[i]];
+            arcs++;
+          } else {
+            const dist = Math.hypot(s.x - px, s.y - py, s.z - pz);
+            // a move under 1 nm makes no block; the next is measured from the last that did
+            if (dist >= 1e-9) {
+              const u: [number, number, number] = [(s.x - px) / dist, (s.y - py) / dist, (s.z - pz) / dist];
+              const v = Math.min(s.kind === 'rapid' ? alongS(u, rapid) : Math.min(s.f / 60, alongS(u, feed)), dist * rate);
+              bound += restToRestS(dist, v, alongS(u, accel));
+              [px, py, pz] = [s.x, s.y, s.z];
+            }
+          }
+          i++;
+        }
+        if (arcs > 0 && arcs < steps.length) withArcs++;
+        const t = estimate(m, p).totalSeconds;
+        expect(t).toBeLessThanOrEqual(bound * (1 + 1e-9) + 1e-9);
+      }),
+      { numRuns: 200 },
+    );
+    expect(runs).toBe(200);
+    // about two thirds of the programs mix arcs with other moves (1 step in 10 is an arc)
+    expect(withArcs).toBeGreaterThanOrEqual(60);
   });
 
   it('time never decreases when an acceleration, the block rate or the look-ahead is lowered', () => {

@@ -3,10 +3,11 @@
 // with no time, the breakdown by kind and tool adding up to the total, and the clock at the
 // end of every move mapping a time back to its move.
 import { describe, expect, it } from 'vitest';
-import { estimate, moveAtTime, restToRestDurationS, stockTopZ } from '@/lib/kinematics';
+import { estimate, moveAtTime, stockTopZ } from '@/lib/kinematics';
 import { Moves, testProfile } from './support/moves';
 
-const t100 = restToRestDurationS(100, 50, 500); // 2.1 s, Biagiotti & Melchiorri §3.2.2 (from memory)
+// 100 mm at 50 mm/s, a = 500, rest to rest: d/v + v/a = 2 + 0.1 (Biagiotti & Melchiorri §3.2.2, from memory)
+const t100 = 2.1;
 
 describe('timed records', () => {
   const program = () =>
@@ -44,7 +45,8 @@ describe('timed records', () => {
 
   it('calibratedSeconds = total × timeFactor', () => {
     const e = estimate(program(), testProfile({ timeFactor: 1.25 }));
-    expect(e.calibratedSeconds).toBeCloseTo(e.totalSeconds * 1.25, 12);
+    // 15 + 3 + 2.1 + 2.5 + 2.1 = 24.7 s, × 1.25
+    expect(e.calibratedSeconds).toBeCloseTo(30.875, 9);
   });
 
   it('per tool: seconds with the tool in the spindle (its change included) and feed distance', () => {
@@ -54,7 +56,7 @@ describe('timed records', () => {
     expect(e.tools[0].feedDistanceMm).toBeCloseTo(100, 9);
     expect(e.tools[1].feedDistanceMm).toBeCloseTo(10, 9);
     expect(e.tools[0].seconds + e.tools[1].seconds).toBeCloseTo(e.totalSeconds, 9);
-    expect(e.tools[1].seconds).toBeCloseTo(10 + restToRestDurationS(10, 50, 500), 9); // change + a 10 mm plunge
+    expect(e.tools[1].seconds).toBeCloseTo(10.3, 9); // change + a 10 mm plunge: 10 + (10/50 + 50/500)
   });
 });
 
@@ -92,7 +94,7 @@ describe('breakdown by kind', () => {
     const m = new Moves({ x: 0, y: 0, z: -1 }).feed(100, 0, -1, 3000).build();
     const e = estimate(m, testProfile());
     expect(e.cuttingFeed.commandedMmPerMin).toBeCloseTo(3000, 6);
-    expect(e.cuttingFeed.achievedMmPerMin).toBeCloseTo((100 / 2.1) * 60, 6);
+    expect(e.cuttingFeed.achievedMmPerMin).toBeCloseTo(2857.142857, 6); // 100 mm in 2.1 s, per minute
     expect(e.cuttingFeed.lostShare).toBeCloseTo(1 - 2 / 2.1, 9);
   });
 });
