@@ -8,6 +8,14 @@ import type { PlungePoint } from '../types';
 
 const RAMP = 1, RAPID = 2;
 
+/**
+ * The slots of PlungePoints.io, the numbers of the point push() records: where it enters, mm,
+ * its depth below the stock top, mm, and its feed, mm/min. Passed through this array rather
+ * than as arguments, which a call that is not inlined boxes.
+ */
+export const PlungeSlot = { x: 0, y: 1, depthMm: 2, feedMmPerMin: 3, size: 4 } as const;
+const P_X = PlungeSlot.x, P_Y = PlungeSlot.y, P_DEPTH = PlungeSlot.depthMm, P_FEED = PlungeSlot.feedMmPerMin;
+
 export class PlungePoints implements Iterable<PlungePoint> {
   private n = 0;
   private lines = new Int32Array(256);
@@ -17,11 +25,8 @@ export class PlungePoints implements Iterable<PlungePoint> {
   private ys = new Float64Array(256);
   private depths = new Float64Array(256);
   private feeds = new Float64Array(256);
-  /**
-   * the numbers of the point for push(): x, y, depth below the stock top (mm), feed (mm/min).
-   * Passed through this array rather than as arguments, which a call that is not inlined boxes.
-   */
-  readonly io = new Float64Array(4);
+  /** the numbers of the point for push(), in the slots of PlungeSlot */
+  readonly io = new Float64Array(PlungeSlot.size);
 
   get length(): number {
     return this.n;
@@ -35,10 +40,10 @@ export class PlungePoints implements Iterable<PlungePoint> {
     this.lines[i] = line;
     this.tools[i] = tool;
     this.flags[i] = (ramp ? RAMP : 0) | (rapid ? RAPID : 0);
-    this.xs[i] = io[0];
-    this.ys[i] = io[1];
-    this.depths[i] = io[2];
-    this.feeds[i] = io[3];
+    this.xs[i] = io[P_X];
+    this.ys[i] = io[P_Y];
+    this.depths[i] = io[P_DEPTH];
+    this.feeds[i] = io[P_FEED];
   }
 
   /** the i-th point (negative i counts from the end, as Array.prototype.at), or undefined */

@@ -4,7 +4,7 @@
 // A fault repeated on consecutive moves is reported once, at its first line.
 import type { FindingSink } from './findings';
 import { fmt, THROWN_PIECE } from './findings';
-import { PlungePoints } from './plunge-points';
+import { PlungePoints, PlungeSlot } from './plunge-points';
 import type { MachineLimits, SheetSpec } from '../types';
 
 const EPS = 1e-6;
@@ -19,6 +19,32 @@ export interface CheckContext {
   toleranceMm: number;
   toolDiameter: (tool: number) => number;
 }
+
+/**
+ * The slots of ProgramChecks.m, the move being checked, written by the move pass (pass/scan.ts)
+ * before each motion(): its start and end, mm; the XY extent of its path; its lowest Z; its
+ * feed; and, for coarseBoxSuffices(), a box known to hold the path. Numbers go through this
+ * array rather than as arguments, which a call that is not inlined would box one by one on
+ * every move. (A module that indexes m in a hot loop copies the slots it uses into constants of
+ * its own: an imported binding is read through an accessor on every use.)
+ */
+export const MoveSlot = {
+  x0: 0, y0: 1, z0: 2,
+  x1: 3, y1: 4, z1: 5,
+  /** XY extent of the move's path */
+  minX: 6, minY: 7, maxX: 8, maxY: 9,
+  /** lowest Z along the path */
+  zLo: 10,
+  feedMmPerMin: 11,
+  /** a box that holds the path (the square about an arc's circle with its end points) */
+  coarseMinX: 12, coarseMinY: 13, coarseMaxX: 14, coarseMaxY: 15,
+  /** the number of slots */
+  size: 16,
+} as const;
+const M_X0 = MoveSlot.x0, M_Y0 = MoveSlot.y0, M_Z0 = MoveSlot.z0, M_X1 = MoveSlot.x1, M_Y1 = MoveSlot.y1, M_Z1 = MoveSlot.z1;
+const M_MIN_X = MoveSlot.minX, M_MIN_Y = MoveSlot.minY, M_MAX_X = MoveSlot.maxX, M_MAX_Y = MoveSlot.maxY, M_Z_LO = MoveSlot.zLo, M_FEED = MoveSlot.feedMmPerMin;
+const M_COARSE_MIN_X = MoveSlot.coarseMinX, M_COARSE_MIN_Y = MoveSlot.coarseMinY, M_COARSE_MAX_X = MoveSlot.coarseMaxX, M_COARSE_MAX_Y = MoveSlot.coarseMaxY;
+const P_X = PlungeSlot.x, P_Y = PlungeSlot.y, P_DEPTH = PlungeSlot.depthMm, P_FEED = PlungeSlot.feedMmPerMin;
 
 // Slots of ProgramChecks.st, the checks' running numbers, and of ProgramChecks.k, the limits
 // worked out once. Kept in typed arrays rather than fields: the pass stores into them on most
@@ -86,18 +112,12 @@ export class ProgramChecks {
     return this.st[S_DIAMETER];
   }
 
-  /**
-   * The coordinates of the move being checked, written by the caller before motion(): the
-   * start x0 y0 z0 (0–2), the end x1 y1 z1 (3–5), the XY extent minX minY maxX maxY (6–9), the
-   * lowest Z (10) and the feed in mm/min (11); for coarseBoxSuffices, a box that holds the
-   * move's path (12–15, as 6–9). Numbers go through this array rather than as arguments, which
-   * a call that is not inlined would box one by one on every move.
-   */
-  readonly m = new Float64Array(16);
+  /** the move being checked, in the slots of MoveSlot (written by the caller before motion()) */
+  readonly m = new Float64Array(MoveSlot.size);
 
   /**
-   * Whether motion() would find the same with the coarse box in m[12..15] as with the move's
-   * exact XY extent, for a move whose end points' box (m[6..9]) lies within the coarse box and
+   * Whether motion() would find the same with the coarse box in m (MoveSlot.coarse…) as with the move's
+   * exact XY extent, for a move whose end points' box (MoveSlot.minX … maxY) lies within the coarse box and
    * the exact extent between the two: true when the end points alone already move in XY, and
    * the coarse box lies within the sheet (so within reach of every sheet check) and within the
    * travel box seen so far (so the span does not grow). Then either box gives every check the
@@ -106,8 +126,8 @@ export class ProgramChecks {
   coarseBoxSuffices(tool: number): boolean {
     const m = this.m, k = this.k, st = this.st, c = this.c;
     const tol = k[K_TOL];
-    if (!(m[8] - m[6] > tol || m[9] - m[7] > tol)) return false;
-    const x0 = m[12], y0 = m[13], x1 = m[14], y1 = m[15];
+    if (!(m[M_MAX_X] - m[M_MIN_X] > tol || m[M_MAX_Y] - m[M_MIN_Y] > tol)) return false;
+    const x0 = m[M_COARSE_MIN_X], y0 = m[M_COARSE_MIN_Y], x1 = m[M_COARSE_MAX_X], y1 = m[M_COARSE_MAX_Y];
     if (c.sheet !== null) {
       if (!(x0 >= k[K_SHEET_LO] && y0 >= k[K_SHEET_LO] && x1 <= k[K_SHEET_W] && y1 <= k[K_SHEET_L])) return false;
       if (tool !== this.lastTool) this.diameterOf(tool);
@@ -122,13 +142,13 @@ export class ProgramChecks {
   }
 
   /**
-   * one motion move (its numbers in `m`): kind 0 rapid, 1 feed, 2 arc; drilling is true for the
+   * one motion move (its numbers in `m`, MoveSlot): kind 0 rapid, 1 feed, 2 arc; drilling is true for the
    * legs of a canned cycle, which plunge straight by design
    */
   motion(line: number, kind: number, spindleOn: boolean, tool: number, drilling: boolean): void {
     const m = this.m, k = this.k, st = this.st;
-    const z0 = m[2], z1 = m[5];
-    const bx0 = m[6], by0 = m[7], bx1 = m[8], by1 = m[9], zLo = m[10];
+    const z0 = m[M_Z0], z1 = m[M_Z1];
+    const bx0 = m[M_MIN_X], by0 = m[M_MIN_Y], bx1 = m[M_MAX_X], by1 = m[M_MAX_Y], zLo = m[M_Z_LO];
     const c = this.c;
     const tol = k[K_TOL];
     const top = c.topZ;
@@ -154,7 +174,7 @@ export class ProgramChecks {
       // entering the stock: plunge points and straight plunges
       if (z0 >= stock && z1 < stock) {
         const pp = this.plungePoints, io = pp.io;
-        io[0] = m[3]; io[1] = m[4]; io[2] = top - z1; io[3] = kind === 0 ? 0 : m[11];
+        io[P_X] = m[M_X1]; io[P_Y] = m[M_Y1]; io[P_DEPTH] = top - z1; io[P_FEED] = kind === 0 ? 0 : m[M_FEED];
         pp.push(line, tool, movesXY, kind === 0);
       }
       if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < stock) {
@@ -213,7 +233,7 @@ export class ProgramChecks {
           this.travelLine = line;
         }
       }
-      const feedMmPerMin = m[11];
+      const feedMmPerMin = m[M_FEED];
       if (kind !== 0 && feedMmPerMin > 0) {
         if (feedMmPerMin <= k[K_FEED_LOW] || (feedMmPerMin <= k[K_ARC_FEED] && (kind === 2 || Math.abs(z1 - z0) <= EPS))) {
           // at most the lowest axis limit, or the lower XY limit on an arc or a level move: no
@@ -232,7 +252,7 @@ export class ProgramChecks {
     const m = this.m, k = this.k;
     let limit: number;
     if (kind === 1) {
-      const dx = Math.abs(m[3] - m[0]), dy = Math.abs(m[4] - m[1]), dz = Math.abs(m[5] - m[2]);
+      const dx = Math.abs(m[M_X1] - m[M_X0]), dy = Math.abs(m[M_Y1] - m[M_Y0]), dz = Math.abs(m[M_Z1] - m[M_Z0]);
       const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
       limit = Infinity;
       if (len > EPS) {

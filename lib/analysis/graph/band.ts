@@ -2,21 +2,30 @@
 // band above the sheet bottom, split exactly where a chord crosses the through level and the
 // band's top, and the rises between two through cuts of one pass (tabs), which are held back
 // until the tool comes down through again and dropped if it leaves the stock first.
-import type { CutGraph } from './cut-graph';
+import { ArcSlot, PieceSlot, type CutGraph } from './cut-graph';
 import { grownF64 } from '../typed-arrays';
+
+// slot copies (an imported binding is read through an accessor on every use)
+const X0 = PieceSlot.x0, Y0 = PieceSlot.y0, Z0 = PieceSlot.z0, X1 = PieceSlot.x1, Y1 = PieceSlot.y1, Z1 = PieceSlot.z1;
+const ARC_Z = ArcSlot.z;
+/** a held-back rise in `pending`: its piece in PieceSlot order, then its move and tool */
+const R_MOVE = PieceSlot.size, R_TOOL = PieceSlot.size + 1, RISE = PieceSlot.size + 2;
 
 export class BandCollector {
   private armed = false;
-  /** the held-back rises, 8 numbers each (x0 y0 z0 x1 y1 z1 move tool), and how many numbers */
+  /** the held-back rises, RISE numbers each (the piece, its move and tool), and how many numbers */
   private pending = new Float64Array(64);
   private pendingCount = 0;
   /** [0]: their XY length so far (in an array: a double field is boxed on some stores) */
   private readonly pendingLen = new Float64Array(1);
-  /** the chord for segment(): x0 y0 z0 x1 y1 z1 (numbers through an array, not boxed arguments) */
-  readonly io = new Float64Array(6);
-  /** the flat arc for arc(), laid out as CutGraph.arcIo (it is that array) */
+  /** the chord for segment(), in the slots of PieceSlot (numbers through an array, not boxed arguments) */
+  readonly io = new Float64Array(PieceSlot.size);
+  /** the flat arc for arc(), in the slots of ArcSlot: the graph's own arcIo, as the band passes arcs on unchanged */
   readonly arcIo: Float64Array;
-  private readonly out: Float64Array;
+  /** the piece of the chord segment() split off, in the slots of PieceSlot */
+  private readonly cut = new Float64Array(PieceSlot.size);
+  /** the graph's input for one piece: piece() and flush() copy into it just before adding */
+  private readonly graphPiece: Float64Array;
 
   constructor(
     private readonly graph: CutGraph,
@@ -26,7 +35,7 @@ export class BandCollector {
     private readonly tabMaxLengthMm: number,
   ) {
     this.arcIo = graph.arcIo;
-    this.out = graph.pieceIo;
+    this.graphPiece = graph.pieceIo;
   }
 
   /** a through cut was made and the tool has not left the stock since: rises may be tabs */
@@ -43,7 +52,7 @@ export class BandCollector {
   /** the chord in io */
   segment(move: number, tool: number): void {
     const io = this.io;
-    const x0 = io[0], y0 = io[1], z0 = io[2], x1 = io[3], y1 = io[4], z1 = io[5];
+    const x0 = io[X0], y0 = io[Y0], z0 = io[Z0], x1 = io[X1], y1 = io[Y1], z1 = io[Z1];
     const zLo = z0 < z1 ? z0 : z1;
     if (!this.armed && zLo > this.bandTopZ) return;
     // (the crossing parameters written out: as a call, each would return a boxed double)
@@ -57,9 +66,9 @@ export class BandCollector {
       const t = (zB - z0) / (z1 - z0);
       if (t > 1e-9 && t < 1 - 1e-9) tB = t;
     }
-    const out = this.out;
+    const out = this.cut;
     if (tT < 0 && tB < 0) {
-      out[0] = x0; out[1] = y0; out[2] = z0; out[3] = x1; out[4] = y1; out[5] = z1;
+      out[X0] = x0; out[Y0] = y0; out[Z0] = z0; out[X1] = x1; out[Y1] = y1; out[Z1] = z1;
       this.piece(move, tool);
       return;
     }
@@ -68,45 +77,42 @@ export class BandCollector {
     // pieces [0, ta], [ta, tb], [tb, 1] (tb may be absent)
     const dx = x1 - x0, dy = y1 - y0, dz = z1 - z0;
     const xa = x0 + dx * ta, ya = y0 + dy * ta, za = z0 + dz * ta;
-    out[0] = x0; out[1] = y0; out[2] = z0; out[3] = xa; out[4] = ya; out[5] = za;
+    out[X0] = x0; out[Y0] = y0; out[Z0] = z0; out[X1] = xa; out[Y1] = ya; out[Z1] = za;
     this.piece(move, tool);
     if (tb < 0) {
-      out[0] = xa; out[1] = ya; out[2] = za; out[3] = x1; out[4] = y1; out[5] = z1;
+      out[X0] = xa; out[Y0] = ya; out[Z0] = za; out[X1] = x1; out[Y1] = y1; out[Z1] = z1;
       this.piece(move, tool);
       return;
     }
     const xb = x0 + dx * tb, yb = y0 + dy * tb, zb = z0 + dz * tb;
-    out[0] = xa; out[1] = ya; out[2] = za; out[3] = xb; out[4] = yb; out[5] = zb;
+    out[X0] = xa; out[Y0] = ya; out[Z0] = za; out[X1] = xb; out[Y1] = yb; out[Z1] = zb;
     this.piece(move, tool);
-    out[0] = xb; out[1] = yb; out[2] = zb; out[3] = x1; out[4] = y1; out[5] = z1;
+    out[X0] = xb; out[Y0] = yb; out[Z0] = zb; out[X1] = x1; out[Y1] = y1; out[Z1] = z1;
     this.piece(move, tool);
   }
 
   /** the flat XY arc in arcIo, at a height z within the band (z ≤ band top) */
   arc(move: number, tool: number): void {
-    if (this.arcIo[4] <= this.throughZ) {
+    if (this.arcIo[ARC_Z] <= this.throughZ) {
       this.flush();
       this.armed = true;
     }
     this.graph.arc(move, tool);
   }
 
-  /** the piece in the graph's pieceIo, wholly on one side of the through and band levels */
+  /** the piece in `cut`, wholly on one side of the through and band levels */
   private piece(move: number, tool: number): void {
-    const p = this.out;
-    const zm = (p[2] + p[5]) * 0.5;
+    const p = this.cut;
+    const zm = (p[Z0] + p[Z1]) * 0.5;
     if (zm <= this.bandTopZ) {
       if (zm <= this.throughZ) {
-        // flush() writes its pieces through the same array: keep this one aside meanwhile
-        if (this.pendingCount > 0) {
-          const x0 = p[0], y0 = p[1], z0 = p[2], x1 = p[3], y1 = p[4], z1 = p[5];
-          this.flush();
-          p[0] = x0; p[1] = y0; p[2] = z0; p[3] = x1; p[4] = y1; p[5] = z1;
-        } else {
-          this.pendingLen[0] = 0;
-        }
+        // down through again: the rises held back since the last through cut were tabs
+        if (this.pendingCount > 0) this.flush();
+        else this.pendingLen[0] = 0;
         this.armed = true;
       }
+      const g = this.graphPiece;
+      g[X0] = p[X0]; g[Y0] = p[Y0]; g[Z0] = p[Z0]; g[X1] = p[X1]; g[Y1] = p[Y1]; g[Z1] = p[Z1];
       this.graph.piece(move, tool);
       return;
     }
@@ -115,25 +121,26 @@ export class BandCollector {
       this.breakRun();
       return;
     }
-    const dx = p[3] - p[0], dy = p[4] - p[1];
+    const dx = p[X1] - p[X0], dy = p[Y1] - p[Y0];
     this.pendingLen[0] += Math.sqrt(dx * dx + dy * dy);
     if (this.pendingLen[0] > this.tabMaxLengthMm) {
       this.breakRun();
       return;
     }
-    if (this.pendingCount + 8 > this.pending.length) this.pending = grownF64(this.pending, 2 * this.pending.length);
+    if (this.pendingCount + RISE > this.pending.length) this.pending = grownF64(this.pending, 2 * this.pending.length);
     const q = this.pending, at = this.pendingCount;
-    q[at] = p[0]; q[at + 1] = p[1]; q[at + 2] = p[2]; q[at + 3] = p[3]; q[at + 4] = p[4]; q[at + 5] = p[5];
-    q[at + 6] = move; q[at + 7] = tool;
-    this.pendingCount = at + 8;
+    q[at + X0] = p[X0]; q[at + Y0] = p[Y0]; q[at + Z0] = p[Z0]; q[at + X1] = p[X1]; q[at + Y1] = p[Y1]; q[at + Z1] = p[Z1];
+    q[at + R_MOVE] = move; q[at + R_TOOL] = tool;
+    this.pendingCount = at + RISE;
   }
 
+  /** the held-back rises into the graph, in the order they were cut */
   private flush(): void {
     const p = this.pending, n = this.pendingCount;
-    const out = this.out;
-    for (let i = 0; i < n; i += 8) {
-      out[0] = p[i]; out[1] = p[i + 1]; out[2] = p[i + 2]; out[3] = p[i + 3]; out[4] = p[i + 4]; out[5] = p[i + 5];
-      this.graph.piece(p[i + 6] | 0, p[i + 7] | 0);
+    const g = this.graphPiece;
+    for (let i = 0; i < n; i += RISE) {
+      g[X0] = p[i + X0]; g[Y0] = p[i + Y0]; g[Z0] = p[i + Z0]; g[X1] = p[i + X1]; g[Y1] = p[i + Y1]; g[Z1] = p[i + Z1];
+      this.graph.piece(p[i + R_MOVE] | 0, p[i + R_TOOL] | 0);
     }
     this.pendingCount = 0;
     this.pendingLen[0] = 0;

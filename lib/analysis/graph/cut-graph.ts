@@ -16,6 +16,21 @@ import { grownF64, grownI32 } from '../typed-arrays';
 
 const KEY_OFFSET = 2 ** 24;
 const KEY_LIMIT = KEY_OFFSET - 1;
+/**
+ * The slots of CutGraph.pieceIo, the straight piece for piece(): its start and end, mm. The
+ * numbers of a piece or an arc go through these arrays rather than as arguments, which a call
+ * that is not inlined boxes one by one.
+ */
+export const PieceSlot = { x0: 0, y0: 1, z0: 2, x1: 3, y1: 4, z1: 5, size: 6 } as const;
+/**
+ * The slots of CutGraph.arcIo, the flat XY arc for arc(): from (x0, y0) to (x1, y1) at height
+ * z, mm, about the centre (cx, cy) with radius r, mm, from the start angle a0 through the signed
+ * sweep, rad (positive counter-clockwise); it ends exactly at (x1, y1).
+ */
+export const ArcSlot = { x0: 0, y0: 1, x1: 2, y1: 3, z: 4, cx: 5, cy: 6, r: 7, a0: 8, sweep: 9, size: 10 } as const;
+const P_X0 = PieceSlot.x0, P_Z0 = PieceSlot.z0, P_X1 = PieceSlot.x1, P_Z1 = PieceSlot.z1;
+const A_X0 = ArcSlot.x0, A_X1 = ArcSlot.x1, A_Z = ArcSlot.z, A_CX = ArcSlot.cx, A_CY = ArcSlot.cy, A_R = ArcSlot.r, A_A0 = ArcSlot.a0, A_SWEEP = ArcSlot.sweep;
+
 /** the largest sweep of one arc edge in the graph (a longer flat arc is split) */
 export const SUB_ARC_RAD = Math.PI / 4;
 
@@ -116,15 +131,12 @@ export class CutGraph {
   /** scratch for a point of a sub-arc */
   private readonly pt = new Float64Array(2);
 
-  /**
-   * The piece for piece(): x0 y0 z0 x1 y1 z1. The numbers of a piece or an arc go through
-   * these arrays rather than as arguments, which a call that is not inlined boxes one by one.
-   */
-  readonly pieceIo = new Float64Array(6);
-  /** the arc for arc(): x0 y0 x1 y1 z cx cy r a0 sweep (see addArc) */
-  readonly arcIo = new Float64Array(10);
+  /** the piece for piece(), in the slots of PieceSlot */
+  readonly pieceIo = new Float64Array(PieceSlot.size);
+  /** the arc for arc(), in the slots of ArcSlot */
+  readonly arcIo = new Float64Array(ArcSlot.size);
 
-  /** the vertex at the point (io[at], io[at + 1]), snapped to the chain tolerance */
+  /** the vertex at the point (io[at], io[at + 1]) (x then y), snapped to the chain tolerance */
   private vertex(io: Float64Array, at: number): number {
     const x = io[at], y = io[at + 1];
     const last = this.last;
@@ -147,20 +159,13 @@ export class CutGraph {
     return id;
   }
 
-  /** a straight piece lying wholly on one side of the through and band levels */
-  addPiece(x0: number, y0: number, z0: number, x1: number, y1: number, z1: number, move: number, tool: number): void {
-    const p = this.pieceIo;
-    p[0] = x0; p[1] = y0; p[2] = z0; p[3] = x1; p[4] = y1; p[5] = z1;
-    this.piece(move, tool);
-  }
-
-  /** addPiece with the piece in pieceIo */
+  /** the straight piece in pieceIo, lying wholly on one side of the through and band levels */
   piece(move: number, tool: number): void {
     const p = this.pieceIo;
-    const a = this.vertex(p, 0);
-    const b = this.vertex(p, 3);
+    const a = this.vertex(p, P_X0);
+    const b = this.vertex(p, P_X1);
     if (a === b) return;
-    const z0 = p[2], z1 = p[5];
+    const z0 = p[P_Z0], z1 = p[P_Z1];
     const u = a < b ? a : b;
     const v = a < b ? b : a;
     const zr = this.zr;
@@ -175,28 +180,18 @@ export class CutGraph {
     this.record(e, move, through, tool);
   }
 
-  /**
-   * a flat XY arc at height z from (x0, y0) about (cx, cy), radius r, start angle a0, signed
-   * sweep, ending exactly at (x1, y1): added as sub-arcs of at most 45°
-   */
-  addArc(x0: number, y0: number, x1: number, y1: number, z: number, cx: number, cy: number, r: number, a0: number, sweep: number, move: number, tool: number): void {
-    const io = this.arcIo;
-    io[0] = x0; io[1] = y0; io[2] = x1; io[3] = y1; io[4] = z; io[5] = cx; io[6] = cy; io[7] = r; io[8] = a0; io[9] = sweep;
-    this.arc(move, tool);
-  }
-
-  /** addArc with the arc in arcIo */
+  /** the flat XY arc in arcIo, added as sub-arcs of at most SUB_ARC_RAD (45°) */
   arc(move: number, tool: number): void {
     const io = this.arcIo;
-    const z = io[4], cx = io[5], cy = io[6], r = io[7], a0 = io[8], sweep = io[9];
+    const z = io[A_Z], cx = io[A_CX], cy = io[A_CY], r = io[A_R], a0 = io[A_A0], sweep = io[A_SWEEP];
     const n = Math.max(1, Math.ceil(Math.abs(sweep) / SUB_ARC_RAD - 1e-9));
     const through = z <= this.throughZ;
     const pt = this.pt;
     const zr = this.zr;
-    let a = this.vertex(io, 0);
+    let a = this.vertex(io, A_X0);
     for (let k = 1; k <= n; k++) {
       let b: number;
-      if (k === n) b = this.vertex(io, 2);
+      if (k === n) b = this.vertex(io, A_X1);
       else {
         pt[0] = cx + r * Math.cos(a0 + (sweep * k) / n);
         pt[1] = cy + r * Math.sin(a0 + (sweep * k) / n);
@@ -214,13 +209,13 @@ export class CutGraph {
           const step = sweep / n;
           if (r > 0) {
             // (a zero radius stays a straight edge, as the arc tests read it)
-            const t = this.arcs, k = t.slot();
-            this.eArc[id] = k;
-            t.cx[k] = cx;
-            t.cy[k] = cy;
-            t.r[k] = r;
-            t.au[k] = a === u ? startAngle : startAngle + step;
-            t.sweep[k] = a === u ? step : -step;
+            const t = this.arcs, slot = t.slot();
+            this.eArc[id] = slot;
+            t.cx[slot] = cx;
+            t.cy[slot] = cy;
+            t.r[slot] = r;
+            t.au[slot] = a === u ? startAngle : startAngle + step;
+            t.sweep[slot] = a === u ? step : -step;
           }
         } else {
           this.record(e, move, through, tool);

@@ -3,6 +3,9 @@
 // h = r(1 − cos(θ/2)); see docs/references.md, Motion). Points advance by a fixed rotation, so a
 // chord costs a few multiplications, not a sine and a cosine.
 import type { ArcTable } from '@/lib/gcode/move-list';
+import { MoveSlot } from '../checks/program-checks';
+
+const X0 = MoveSlot.x0, Y0 = MoveSlot.y0, Z0 = MoveSlot.z0, X1 = MoveSlot.x1, Y1 = MoveSlot.y1, Z1 = MoveSlot.z1;
 
 export class ArcChords {
   x = new Float64Array(256);
@@ -21,14 +24,15 @@ export class ArcChords {
   }
 
   /**
-   * flattens arc k of the table, from (x0, y0, z0) to (x1, y1, z1) given in ends[0..5], within
-   * toleranceMm (the points come in an array: as arguments they would be boxed on every call)
+   * flattens row `arc` of the arc table, from its move's start to its end given in `move` (the
+   * move pass's buffer, MoveSlot x0 … z1), within toleranceMm (the points come in an array: as
+   * arguments they would be boxed on every call)
    */
-  flatten(arcs: ArcTable, k: number, ends: Float64Array, toleranceMm: number): void {
-    const x0 = ends[0], y0 = ends[1], z0 = ends[2], x1 = ends[3], y1 = ends[4], z1 = ends[5];
-    const r = arcs.radius[k];
-    const sweep = arcs.sweep[k];
-    const plane = arcs.plane[k];
+  flatten(arcs: ArcTable, arc: number, move: Float64Array, toleranceMm: number): void {
+    const x0 = move[X0], y0 = move[Y0], z0 = move[Z0], x1 = move[X1], y1 = move[Y1], z1 = move[Z1];
+    const r = arcs.radius[arc];
+    const sweep = arcs.sweep[arc];
+    const plane = arcs.plane[arc];
     const theta = Math.abs(sweep);
     let n = 1;
     if (r > toleranceMm && theta > 1e-9) {
@@ -42,11 +46,11 @@ export class ArcChords {
     // in-plane coordinates (u, v) and the normal coordinate w, per RS274/NGC plane selection
     let u0: number, v0: number, w0: number, w1: number, cu: number, cv: number;
     if (plane === 0) {
-      u0 = x0; v0 = y0; w0 = z0; w1 = z1; cu = arcs.cx[k]; cv = arcs.cy[k];
+      u0 = x0; v0 = y0; w0 = z0; w1 = z1; cu = arcs.cx[arc]; cv = arcs.cy[arc];
     } else if (plane === 1) {
-      u0 = z0; v0 = x0; w0 = y0; w1 = y1; cu = arcs.cz[k]; cv = arcs.cx[k];
+      u0 = z0; v0 = x0; w0 = y0; w1 = y1; cu = arcs.cz[arc]; cv = arcs.cx[arc];
     } else {
-      u0 = y0; v0 = z0; w0 = x0; w1 = x1; cu = arcs.cy[k]; cv = arcs.cz[k];
+      u0 = y0; v0 = z0; w0 = x0; w1 = x1; cu = arcs.cy[arc]; cv = arcs.cz[arc];
     }
     const d = sweep / n;
     const c = Math.cos(d);

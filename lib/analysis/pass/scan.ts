@@ -4,8 +4,8 @@
 import { MoveFlag, MoveKind, type MoveList } from '@/lib/gcode/move-list';
 import { ArcChords } from './arc-chords';
 import { BandCollector } from '../graph/band';
-import { CutGraph, SUB_ARC_RAD } from '../graph/cut-graph';
-import type { ProgramChecks } from '../checks/program-checks';
+import { ArcSlot, CutGraph, PieceSlot, SUB_ARC_RAD } from '../graph/cut-graph';
+import { MoveSlot, type ProgramChecks } from '../checks/program-checks';
 
 // The kinds and flags as plain numbers: read through the import on every move, each access is a
 // call to the module loader's export getter, which V8 does not inline (tens of ms per pass).
@@ -15,6 +15,13 @@ const ARC: number = MoveKind.arc;
 const DWELL: number = MoveKind.dwell;
 const SPINDLE_ON: number = MoveFlag.spindleOn;
 const CANNED: number = MoveFlag.cannedCycle;
+// The slots of the buffers this pass fills, copied for the same reason: the move for the checks
+// (MoveSlot), a chord for the band (PieceSlot), a flat arc for the band (ArcSlot).
+const M_X0 = MoveSlot.x0, M_Y0 = MoveSlot.y0, M_Z0 = MoveSlot.z0, M_X1 = MoveSlot.x1, M_Y1 = MoveSlot.y1, M_Z1 = MoveSlot.z1;
+const M_MIN_X = MoveSlot.minX, M_MIN_Y = MoveSlot.minY, M_MAX_X = MoveSlot.maxX, M_MAX_Y = MoveSlot.maxY, M_Z_LO = MoveSlot.zLo, M_FEED = MoveSlot.feedMmPerMin;
+const M_COARSE_MIN_X = MoveSlot.coarseMinX, M_COARSE_MIN_Y = MoveSlot.coarseMinY, M_COARSE_MAX_X = MoveSlot.coarseMaxX, M_COARSE_MAX_Y = MoveSlot.coarseMaxY;
+const S_X0 = PieceSlot.x0, S_Y0 = PieceSlot.y0, S_Z0 = PieceSlot.z0, S_X1 = PieceSlot.x1, S_Y1 = PieceSlot.y1, S_Z1 = PieceSlot.z1;
+const A_X0 = ArcSlot.x0, A_Y0 = ArcSlot.y0, A_X1 = ArcSlot.x1, A_Y1 = ArcSlot.y1, A_Z = ArcSlot.z, A_CX = ArcSlot.cx, A_CY = ArcSlot.cy, A_R = ArcSlot.r, A_A0 = ArcSlot.a0, A_SWEEP = ArcSlot.sweep;
 
 export interface ScanLevels {
   /** null when no sheet is given: no through-cut graph */
@@ -58,40 +65,40 @@ function arcExtent(io: Float64Array): void {
 }
 
 /**
- * A flat arc: arc c of the table, its move's start and end in m[0..5] and the XY box of its end
- * points in m[6..9], which this widens to the arc's path. When the square about the circle,
+ * A flat arc: arc c of the table, its move's start and end in m (MoveSlot x0 … z1) and the XY
+ * box of its end points in m (MoveSlot minX … maxY), which this widens to the arc's path. When the square about the circle,
  * joined with the end points, already gives every check the answer the exact extent would
  * (ProgramChecks.coarseBoxSuffices), that square is the box, with no sine or cosine; else the
  * exact extent. With arcIo given, also lays the arc out for BandCollector.arc.
  */
 function flatArc(arcs: MoveList['arcs'], c: number, m: Float64Array, ext: Float64Array, arcIo: Float64Array | null, checks: ProgramChecks, tool: number): void {
-  const px = m[0], py = m[1];
+  const px = m[M_X0], py = m[M_Y0];
   const cx = arcs.cx[c], cy = arcs.cy[c], r = arcs.radius[c], sw = arcs.sweep[c];
   let a0 = NaN;
   if (arcIo !== null) {
     a0 = Math.atan2(py - cy, px - cx);
-    arcIo[0] = px; arcIo[1] = py; arcIo[2] = m[3]; arcIo[3] = m[4]; arcIo[4] = m[5];
-    arcIo[5] = cx; arcIo[6] = cy; arcIo[7] = r; arcIo[8] = a0; arcIo[9] = sw;
+    arcIo[A_X0] = px; arcIo[A_Y0] = py; arcIo[A_X1] = m[M_X1]; arcIo[A_Y1] = m[M_Y1]; arcIo[A_Z] = m[M_Z1];
+    arcIo[A_CX] = cx; arcIo[A_CY] = cy; arcIo[A_R] = r; arcIo[A_A0] = a0; arcIo[A_SWEEP] = sw;
   }
   // the square about the circle holds the exact extent: each point is cx + r·cos(a) with
   // cos(a) ≥ −1, and rounding keeps that order (the axis crossings are cx ± r exactly)
   if (r >= 0) {
     const lo = cx - r, hi = cx + r, loY = cy - r, hiY = cy + r;
-    m[12] = m[6] < lo ? m[6] : lo;
-    m[13] = m[7] < loY ? m[7] : loY;
-    m[14] = m[8] > hi ? m[8] : hi;
-    m[15] = m[9] > hiY ? m[9] : hiY;
+    m[M_COARSE_MIN_X] = m[M_MIN_X] < lo ? m[M_MIN_X] : lo;
+    m[M_COARSE_MIN_Y] = m[M_MIN_Y] < loY ? m[M_MIN_Y] : loY;
+    m[M_COARSE_MAX_X] = m[M_MAX_X] > hi ? m[M_MAX_X] : hi;
+    m[M_COARSE_MAX_Y] = m[M_MAX_Y] > hiY ? m[M_MAX_Y] : hiY;
     if (checks.coarseBoxSuffices(tool)) {
-      m[6] = m[12]; m[7] = m[13]; m[8] = m[14]; m[9] = m[15];
+      m[M_MIN_X] = m[M_COARSE_MIN_X]; m[M_MIN_Y] = m[M_COARSE_MIN_Y]; m[M_MAX_X] = m[M_COARSE_MAX_X]; m[M_MAX_Y] = m[M_COARSE_MAX_Y];
       return;
     }
   }
   ext[0] = cx; ext[1] = cy; ext[2] = r; ext[3] = arcIo !== null ? a0 : Math.atan2(py - cy, px - cx); ext[4] = sw;
   arcExtent(ext);
-  if (ext[0] < m[6]) m[6] = ext[0];
-  if (ext[1] < m[7]) m[7] = ext[1];
-  if (ext[2] > m[8]) m[8] = ext[2];
-  if (ext[3] > m[9]) m[9] = ext[3];
+  if (ext[0] < m[M_MIN_X]) m[M_MIN_X] = ext[0];
+  if (ext[1] < m[M_MIN_Y]) m[M_MIN_Y] = ext[1];
+  if (ext[2] > m[M_MAX_X]) m[M_MAX_X] = ext[2];
+  if (ext[3] > m[M_MAX_Y]) m[M_MAX_Y] = ext[3];
 }
 
 /**
@@ -139,8 +146,8 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
   // allocating on every move. m holds the move for the checks (its start and end also feed
   // the arc chords), seg a chord for the band, arcIo a flat arc for the band, ext the arc extent.
   const m = checks.m;
-  const seg = band ? band.io : new Float64Array(6);
-  const arcIo = band ? band.arcIo : new Float64Array(10);
+  const seg = band ? band.io : new Float64Array(PieceSlot.size);
+  const arcIo = band ? band.arcIo : new Float64Array(ArcSlot.size);
   const ext = new Float64Array(5);
   const toolFirstLine = new Map<number, number>();
   const firstThroughByTool = new Map<number, number>();
@@ -162,7 +169,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
       continue;
     }
     const px = prev[0], py = prev[1], pz = prev[2];
-    m[0] = px; m[1] = py; m[2] = pz; m[3] = x1; m[4] = y1; m[5] = z1;
+    m[M_X0] = px; m[M_Y0] = py; m[M_Z0] = pz; m[M_X1] = x1; m[M_Y1] = y1; m[M_Z1] = z1;
     const t = tool[i];
     const fl = flags[i];
     let zLo = pz < z1 ? pz : z1;
@@ -183,7 +190,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
       if (k === FEED) {
         // (a feed above the band with no tab rise pending is nothing to the band: skip the call)
         if (band && (zLo <= bandTop || band.isArmed)) {
-          seg[0] = px; seg[1] = py; seg[2] = pz; seg[3] = x1; seg[4] = y1; seg[5] = z1;
+          seg[S_X0] = px; seg[S_Y0] = py; seg[S_Z0] = pz; seg[S_X1] = x1; seg[S_Y1] = y1; seg[S_Z1] = z1;
           band.segment(i, t);
         }
       } else {
@@ -194,17 +201,17 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
         if (nearArc || (flat && !(band && band.isArmed))) {
           // a flat arc near the bottom stays an arc in the graph; away from it, with no tab rise
           // pending, its exact extent is all the checks need
-          m[6] = bx0; m[7] = by0; m[8] = bx1; m[9] = by1;
+          m[M_MIN_X] = bx0; m[M_MIN_Y] = by0; m[M_MAX_X] = bx1; m[M_MAX_Y] = by1;
           flatArc(arcs, arcCursor, m, ext, nearArc ? arcIo : null, checks, t);
           if (nearArc && band) band.arc(i, t);
-          bx0 = m[6]; by0 = m[7]; bx1 = m[8]; by1 = m[9];
+          bx0 = m[M_MIN_X]; by0 = m[M_MIN_Y]; bx1 = m[M_MAX_X]; by1 = m[M_MAX_Y];
         } else if (isArc) {
           // exact chords near the bottom; coarser ones suffice for the extent checks
           chords.flatten(arcs, arcCursor, m, zLo <= bandTop ? tolNear : tolFar);
           const cx = chords.x, cy = chords.y, cz = chords.z, cn = chords.count;
           for (let j = 1; j < cn; j++) {
             if (band) {
-              seg[0] = cx[j - 1]; seg[1] = cy[j - 1]; seg[2] = cz[j - 1]; seg[3] = cx[j]; seg[4] = cy[j]; seg[5] = cz[j];
+              seg[S_X0] = cx[j - 1]; seg[S_Y0] = cy[j - 1]; seg[S_Z0] = cz[j - 1]; seg[S_X1] = cx[j]; seg[S_Y1] = cy[j]; seg[S_Z1] = cz[j];
               band.segment(i, t);
             }
             if (cx[j] < bx0) bx0 = cx[j];
@@ -214,12 +221,12 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
             if (cz[j] < zLo) zLo = cz[j];
           }
         } else if (band) {
-          seg[0] = px; seg[1] = py; seg[2] = pz; seg[3] = x1; seg[4] = y1; seg[5] = z1;
+          seg[S_X0] = px; seg[S_Y0] = py; seg[S_Z0] = pz; seg[S_X1] = x1; seg[S_Y1] = y1; seg[S_Z1] = z1;
           band.segment(i, t);
         }
       }
     }
-    m[6] = bx0; m[7] = by0; m[8] = bx1; m[9] = by1; m[10] = zLo; m[11] = feed[i];
+    m[M_MIN_X] = bx0; m[M_MIN_Y] = by0; m[M_MAX_X] = bx1; m[M_MAX_Y] = by1; m[M_Z_LO] = zLo; m[M_FEED] = feed[i];
     checks.motion(line[i], k, (fl & SPINDLE_ON) !== 0, t, (fl & CANNED) !== 0);
     prev[0] = x1; prev[1] = y1; prev[2] = z1;
   }

@@ -5,6 +5,7 @@
 // makes shared ends, touches and collinear overlaps common.
 import { describe, expect, it } from 'vitest';
 import { CutGraph } from '@/lib/analysis/graph/cut-graph';
+import { addPiece } from './support/graph';
 import { findCrossings } from '@/lib/analysis/graph/crossings';
 
 const THROUGH_Z = -17.95;
@@ -34,7 +35,7 @@ function allAlive(g: CutGraph): Uint8Array {
 function polygon(g: CutGraph, pts: number[][]): void {
   for (let i = 0; i < pts.length; i++) {
     const [x0, y0] = pts[i], [x1, y1] = pts[(i + 1) % pts.length];
-    g.addPiece(x0, y0, -18.2, x1, y1, -18.2, i, 1);
+    addPiece(g, x0, y0, -18.2, x1, y1, -18.2, i, 1);
   }
 }
 
@@ -52,11 +53,11 @@ describe('findCrossings', () => {
         const x0 = x, y0 = y, n = 2 + rnd(12);
         for (let k = 0; k < n; k++) {
           const nx = ox + rnd(31), ny = rnd(31);
-          g.addPiece(x, y, -18.2, nx, ny, -18.2, k, 1);
+          addPiece(g, x, y, -18.2, nx, ny, -18.2, k, 1);
           x = nx; y = ny;
         }
         // half the chains closed into loops
-        if (rnd(2) === 0) g.addPiece(x, y, -18.2, x0, y0, -18.2, n, 1);
+        if (rnd(2) === 0) addPiece(g, x, y, -18.2, x0, y0, -18.2, n, 1);
       }
       const { crossed, crossings } = findCrossings(g, 1e-9, allAlive(g));
       const want = bruteCrossed(g);
@@ -72,10 +73,10 @@ describe('findCrossings', () => {
   it('a hole inside its part and parts side by side do not cross', () => {
     const g = new CutGraph(0.01, THROUGH_Z);
     const rect = (x0: number, y0: number, x1: number, y1: number) => {
-      g.addPiece(x0, y0, -18.2, x1, y0, -18.2, 0, 1);
-      g.addPiece(x1, y0, -18.2, x1, y1, -18.2, 1, 1);
-      g.addPiece(x1, y1, -18.2, x0, y1, -18.2, 2, 1);
-      g.addPiece(x0, y1, -18.2, x0, y0, -18.2, 3, 1);
+      addPiece(g, x0, y0, -18.2, x1, y0, -18.2, 0, 1);
+      addPiece(g, x1, y0, -18.2, x1, y1, -18.2, 1, 1);
+      addPiece(g, x1, y1, -18.2, x0, y1, -18.2, 2, 1);
+      addPiece(g, x0, y1, -18.2, x0, y0, -18.2, 3, 1);
     };
     rect(0, 0, 100, 60);
     rect(20, 20, 40, 40);
@@ -118,7 +119,7 @@ describe('findCrossings', () => {
     polygon(fan, [[0, 0], [1000, 0], [1000, 1000], [0, 1000]]);
     for (let i = 0; i < 150; i++) {
       const a = (Math.PI * i) / 150;
-      fan.addPiece(500 - 20 * Math.cos(a), 500 - 20 * Math.sin(a), -18.2, 500 + 20 * Math.cos(a), 500 + 20 * Math.sin(a), -18.2, 10 + i, 1);
+      addPiece(fan, 500 - 20 * Math.cos(a), 500 - 20 * Math.sin(a), -18.2, 500 + 20 * Math.cos(a), 500 + 20 * Math.sin(a), -18.2, 10 + i, 1);
     }
     const f = findCrossings(fan, 0.01, allAlive(fan));
     expect(Array.from(f.crossed)).toEqual(Array.from(bruteCrossed(fan)));

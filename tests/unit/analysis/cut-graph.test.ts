@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { findCrossings } from '@/lib/analysis/graph/crossings';
 import { CutGraph } from '@/lib/analysis/graph/cut-graph';
+import { addArc, addPiece } from './support/graph';
 import { extractLoops, prune } from '@/lib/analysis/graph/faces';
 import { KeyTable } from '@/lib/analysis/graph/key-table';
 
@@ -14,7 +15,7 @@ const THROUGH_Z = -17.95;
 /** a square lap at depth z from move index `move` on, counter-clockwise from (x0, y0) */
 function square(g: CutGraph, x0: number, y0: number, side: number, z: number, move: number): void {
   const pts = [[x0, y0], [x0 + side, y0], [x0 + side, y0 + side], [x0, y0 + side], [x0, y0]];
-  for (let i = 1; i < pts.length; i++) g.addPiece(pts[i - 1][0], pts[i - 1][1], z, pts[i][0], pts[i][1], z, move + i - 1, 1);
+  for (let i = 1; i < pts.length; i++) addPiece(g, pts[i - 1][0], pts[i - 1][1], z, pts[i][0], pts[i][1], z, move + i - 1, 1);
 }
 
 describe('KeyTable', () => {
@@ -78,7 +79,7 @@ describe('CutGraph', () => {
     square(g, 0, 0, 50, -18.2, 0);
     // the same square, clockwise, each corner moved by under half the tolerance
     const pts = [[0.002, 0.001], [-0.001, 50.003], [50.002, 49.998], [49.999, 0.002], [0.002, 0.001]];
-    for (let i = 1; i < pts.length; i++) g.addPiece(pts[i - 1][0], pts[i - 1][1], -18.3, pts[i][0], pts[i][1], -18.3, 10 + i, 1);
+    for (let i = 1; i < pts.length; i++) addPiece(g, pts[i - 1][0], pts[i - 1][1], -18.3, pts[i][0], pts[i][1], -18.3, 10 + i, 1);
     expect(g.vertexCount).toBe(4);
     expect(g.edgeCount).toBe(4);
     for (let e = 0; e < 4; e++) expect(g.eZMin[e]).toBe(-18.3);
@@ -87,11 +88,11 @@ describe('CutGraph', () => {
   it('an arc and a straight chord between the same two points stay two edges; a retraced arc stays one', () => {
     const g = new CutGraph(0.01, THROUGH_Z);
     // half circle of radius 10 about (0, 0) from (10, 0) to (-10, 0): 4 sub-arcs of 45°
-    g.addArc(10, 0, -10, 0, -18.2, 0, 0, 10, 0, Math.PI, 0, 1);
-    g.addArc(10, 0, -10, 0, -18.3, 0, 0, 10, 0, Math.PI, 1, 1);
+    addArc(g, 10, 0, -10, 0, -18.2, 0, 0, 10, 0, Math.PI, 0, 1);
+    addArc(g, 10, 0, -10, 0, -18.3, 0, 0, 10, 0, Math.PI, 1, 1);
     expect(g.edgeCount).toBe(4);
     expect(g.vertexCount).toBe(5);
-    g.addPiece(-10, 0, -18.2, 10, 0, -18.2, 2, 1);
+    addPiece(g, -10, 0, -18.2, 10, 0, -18.2, 2, 1);
     expect(g.edgeCount).toBe(5);
     let arcs = 0;
     for (let e = 0; e < g.edgeCount; e++) if (g.arcs.r[g.eArc[e]] > 0) { arcs++; expect(g.eZMin[e]).toBe(-18.3); }
@@ -104,9 +105,9 @@ describe('CutGraph', () => {
     const g = new CutGraph(0.01, THROUGH_Z);
     square(g, 0, 0, 40, -18.2, 0);
     // a second lap with its bottom side broken at X 15 (a tab end, say)
-    g.addPiece(0, 0, -18.3, 15, 0, -18.3, 10, 1);
-    g.addPiece(15, 0, -18.3, 40, 0, -18.3, 11, 1);
-    g.addPiece(40, 0, -18.3, 40, 40, -18.3, 12, 1);
+    addPiece(g, 0, 0, -18.3, 15, 0, -18.3, 10, 1);
+    addPiece(g, 15, 0, -18.3, 40, 0, -18.3, 11, 1);
+    addPiece(g, 40, 0, -18.3, 40, 40, -18.3, 12, 1);
     expect(g.edgeCount).toBe(6);
     g.zipOverlaps();
     expect(g.edgeCount).toBe(5);
@@ -114,7 +115,7 @@ describe('CutGraph', () => {
     expect(loops.length).toBe(1);
     expect(loops[0].length).toBe(5);
     // after renumbering, later retraces still find the edges at each vertex
-    g.addPiece(40, 40, -18.4, 0, 40, -18.4, 20, 1);
+    addPiece(g, 40, 40, -18.4, 0, 40, -18.4, 20, 1);
     expect(g.edgeCount).toBe(5);
   });
 
@@ -141,7 +142,7 @@ describe('CutGraph', () => {
     // clockwise: the first walk from edge 0 goes round the outside, so the loop is read off it backwards
     const cw = new CutGraph(0.01, THROUGH_Z);
     const pts = [[0, 0], [0, 20], [20, 20], [20, 0], [0, 0]];
-    for (let i = 1; i < pts.length; i++) cw.addPiece(pts[i - 1][0], pts[i - 1][1], -18.2, pts[i][0], pts[i][1], -18.2, i, 1);
+    for (let i = 1; i < pts.length; i++) addPiece(cw, pts[i - 1][0], pts[i - 1][1], -18.2, pts[i][0], pts[i][1], -18.2, i, 1);
     check(cw, [400]);
     // two squares side by side sharing the side X 20: branch points of three edges at its ends
     const two = new CutGraph(0.01, THROUGH_Z);
@@ -155,8 +156,8 @@ describe('CutGraph', () => {
     const g = new CutGraph(0.01, THROUGH_Z);
     square(g, 0, 0, 20, -18.2, 0);
     expect(findCrossings(g, 0.01, prune(g).alive).crossings.length).toBe(0);
-    g.addPiece(0, 0, -18.2, 20, 20, -18.2, 10, 1);
-    g.addPiece(20, 0, -18.2, 0, 20, -18.2, 11, 1);
+    addPiece(g, 0, 0, -18.2, 20, 20, -18.2, 10, 1);
+    addPiece(g, 20, 0, -18.2, 0, 20, -18.2, 11, 1);
     const { crossings } = findCrossings(g, 0.01, prune(g).alive);
     expect(crossings.length).toBe(1);
     expect(crossings[0].x).toBeCloseTo(10, 9);
