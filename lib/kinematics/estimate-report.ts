@@ -59,7 +59,7 @@ export function buildEstimateReport(input: ReportInput): EstimateReport {
   if (input.extraFindings) findings.push(...input.extraFindings);
   // one list in program order, the way a programmer reads it against the file (stable sort:
   // findings of one line keep the order their checks gave them); whole-program ones (line 0) first
-  findings.sort((a, b) => a.line - b.line);
+  findings.sort((f, g) => f.line - g.line);
   return {
     engine: ENGINE_VERSION,
     file: { ...input.file },
