@@ -97,14 +97,15 @@ export async function requestEstimate(tx: DbHandle, request: EstimateRequest): P
     engineVersion: ENGINE_VERSION,
   });
 
-  const findExisting = async () =>
-    (
-      await tx
-        .select({ id: estimates.id, status: estimates.status })
-        .from(estimates)
-        .where(and(eq(estimates.shopId, request.shopId), eq(estimates.inputKey, key)))
-        .limit(1)
-    )[0];
+  const findExisting = async (locking = false) => {
+    const query = tx
+      .select({ id: estimates.id, status: estimates.status })
+      .from(estimates)
+      .where(and(eq(estimates.shopId, request.shopId), eq(estimates.inputKey, key)))
+      .limit(1);
+    // a locking read sees rows committed after this transaction's snapshot was taken
+    return (await (locking ? query.for('update') : query))[0];
+  };
 
   let existing = await findExisting();
   if (!existing) {
@@ -129,7 +130,7 @@ export async function requestEstimate(tx: DbHandle, request: EstimateRequest): P
     } catch (err) {
       // the same inputs requested at the same moment by another transaction: use its row
       if (!isDuplicateKey(err)) throw err;
-      existing = await findExisting();
+      existing = await findExisting(true);
       if (!existing) throw err;
     }
   }
@@ -140,7 +141,7 @@ export async function requestEstimate(tx: DbHandle, request: EstimateRequest): P
       .set({ status: 'pending', progress: 0, leaseOwner: null, leaseUntil: null })
       .where(and(eq(estimates.id, existing.id), eq(estimates.status, 'failed')));
     if (result.affectedRows === 1) return { id: existing.id, status: 'pending', created: false, requeued: true };
-    existing = (await findExisting()) ?? existing;
+    existing = (await findExisting(true)) ?? existing;
   }
   return { id: existing.id, status: existing.status, created: false, requeued: false };
 }

@@ -30,9 +30,20 @@ export interface EstimateRun {
   checks: AnalysisResult;
 }
 
-export function runEstimate(text: string, profile: MachineProfile, job: EstimateJob, file: EstimateFile): EstimateRun {
+/** The stages runEstimate has finished, in order; the server's worker turns them into progress. */
+export type EstimateStage = 'interpreted' | 'planned' | 'checked';
+
+export function runEstimate(
+  text: string,
+  profile: MachineProfile,
+  job: EstimateJob,
+  file: EstimateFile,
+  onStage?: (stage: EstimateStage) => void,
+): EstimateRun {
   const interpretation = interpret(text, { home: profile.homeMm });
+  onStage?.('interpreted');
   const est = estimate(interpretation.moves, profile, { stockTopZ: stockTopZ(job.zero, job.sheet?.thicknessMm) });
+  onStage?.('planned');
   const checks = analyze(interpretation.moves, {
     sheet: job.sheet,
     zZero: job.zero,
@@ -42,6 +53,7 @@ export function runEstimate(text: string, profile: MachineProfile, job: Estimate
     tools: profile.tools.map((t) => ({ number: t.number, diameterMm: t.diameterMm, flutes: t.flutes, kind: t.kind })),
     machine: { travelMm: profile.travelMm, maxFeedMmPerMin: profile.maxFeedMmPerMin },
   });
+  onStage?.('checked');
   // the settings are the shop's, not the program's: they stay out of the per-program report
   const { settings: _settings, ...summary } = checks.summary;
   void _settings;
