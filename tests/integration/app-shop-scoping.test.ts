@@ -174,7 +174,9 @@ describe('roles outside the table get 403', () => {
   it.each([
     ['lena', 'GET', '/api/users', undefined, 'forbidden:user'],
     ['lena', 'GET', '/api/customers', undefined, 'forbidden:customer'],
-    ['lena', 'PATCH', '/api/jobs/:jobId', { status: 'running' }, 'forbidden:job'],
+    // the operator starts and finishes runs but never marks a job quoted (lib/auth/roles.ts)
+    ['lena', 'PATCH', '/api/jobs/:jobId', { status: 'quoted' }, 'forbidden:job'],
+    ['lena', 'PUT', '/api/jobs/:jobId', { title: 'Renamed by an operator' }, 'forbidden:job'],
     ['tomas', 'GET', '/api/users', undefined, 'forbidden:user'],
     ['priya', 'POST', '/api/users', { name: 'X', email: 'x@alder-finch.example', role: 'admin', password: 'long-enough-1' }, 'forbidden:user'],
     ['priya', 'PATCH', '/api/users/:userId', { role: 'admin' }, 'forbidden:user'],

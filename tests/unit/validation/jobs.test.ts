@@ -1,7 +1,8 @@
 // Job schema: FormData strings coerced to numbers, sheet limits, vacuum level limits.
 import { describe, expect, it } from 'vitest';
 import { fieldErrors } from '@/lib/validation/form';
-import { jobCreateSchema, jobStatusSchema } from '@/lib/validation/jobs';
+import { isCalendarDate } from '@/lib/validation/dates';
+import { jobCreateSchema, jobListQuerySchema, jobStatusSchema, searchParamsToObject, sortDirection } from '@/lib/validation/jobs';
 
 // 4 × 8 ft metric nominal sheet, 18 mm birch plywood (common practice)
 const form = {
@@ -62,5 +63,58 @@ describe('jobStatusSchema', () => {
   it('takes the statuses of the schema only', () => {
     expect(jobStatusSchema.parse({ status: 'running' })).toEqual({ status: 'running' });
     expect(jobStatusSchema.safeParse({ status: 'paused' }).success).toBe(false);
+  });
+});
+
+describe('due date and notes', () => {
+  // ISO 8601-1:2019 §5.2.2.1 calendar date YYYY-MM-DD; Gregorian leap years: divisible by 4,
+  // except centuries not divisible by 400 (ISO 8601-1:2019 §3.2.1)
+  it('takes real calendar dates only, leap days included', () => {
+    expect(isCalendarDate('2028-02-29')).toBe(true);
+    expect(isCalendarDate('2000-02-29')).toBe(true);
+    expect(isCalendarDate('2100-02-29')).toBe(false);
+    expect(isCalendarDate('2027-02-29')).toBe(false);
+    expect(isCalendarDate('2027-04-31')).toBe(false);
+    expect(isCalendarDate('2027-13-01')).toBe(false);
+    expect(isCalendarDate('31/03/2027')).toBe(false);
+  });
+
+  it('names the due date and over-long notes as fields', () => {
+    const result = jobCreateSchema.safeParse({ ...form, dueDate: '2027-02-30', notes: 'x'.repeat(2001) });
+    expect(result.success).toBe(false);
+    if (!result.success) expect(Object.keys(fieldErrors(result.error)).sort()).toEqual(['dueDate', 'notes']);
+    expect(jobCreateSchema.parse({ ...form, dueDate: '2027-03-31', notes: 'Edge-band after cutting.', machineId: '2' })).toMatchObject({
+      dueDate: '2027-03-31',
+      notes: 'Edge-band after cutting.',
+      machineId: 2,
+    });
+  });
+});
+
+describe('jobListQuerySchema', () => {
+  it('defaults to the latest changes first, 25 a page', () => {
+    const query = jobListQuerySchema.parse({});
+    expect(query).toMatchObject({ sort: 'updated', page: 1, perPage: 25 });
+    expect(sortDirection(query)).toBe('desc');
+    expect(sortDirection({ sort: 'title' })).toBe('asc');
+    expect(sortDirection({ sort: 'title', dir: 'desc' })).toBe('desc');
+  });
+
+  it('reads URL search params, empty ones as unset', () => {
+    const params = new URLSearchParams('status=quoted&customerId=&machineId=2&q=%20bracket%20&sort=due&page=3&perPage=50');
+    expect(jobListQuerySchema.parse(searchParamsToObject(params))).toEqual({
+      status: 'quoted',
+      machineId: 2,
+      q: 'bracket',
+      sort: 'due',
+      page: 3,
+      perPage: 50,
+    });
+  });
+
+  it('names each bad parameter', () => {
+    const result = jobListQuerySchema.safeParse({ status: 'paused', machineId: 'two', sort: 'colour', page: '0', perPage: '30', dir: 'up' });
+    expect(result.success).toBe(false);
+    if (!result.success) expect(Object.keys(fieldErrors(result.error)).sort()).toEqual(['dir', 'machineId', 'page', 'perPage', 'sort', 'status']);
   });
 });
