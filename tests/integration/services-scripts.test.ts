@@ -208,3 +208,42 @@ describe('a second set of the fakes in a scratch folder, ports from the environm
     expect(alive(bystander.pid!)).toBe(true);
   });
 });
+
+describe('ports and service names from the environment that cannot be used', () => {
+  let scratch: string;
+  let listener: net.Server;
+  let taken: number;
+
+  beforeAll(async () => {
+    scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfcast-services-taken-'));
+    // another program already listening on the port the environment names
+    listener = net.createServer((socket) => socket.destroy());
+    await new Promise<void>((resolve) => listener.listen(0, '127.0.0.1', () => resolve()));
+    taken = (listener.address() as net.AddressInfo).port;
+  });
+
+  afterAll(async () => {
+    if (scratch) {
+      await runScript('services-stop.sh', { KERFCAST_DATA_DIR: scratch, KERFCAST_SERVICES: 's3-fake' });
+      fs.rmSync(scratch, { recursive: true, force: true });
+    }
+    await new Promise((resolve) => listener?.close(resolve));
+  });
+
+  it('a port taken by another process: start refuses, names the port and the variable, starts nothing', { timeout: PROMPT_MS + 5000 }, async () => {
+    const run = await runScript('services-start.sh', { KERFCAST_DATA_DIR: scratch, KERFCAST_SERVICES: 's3-fake', KERFCAST_S3_PORT: String(taken) });
+    expect(run.code).not.toBe(0);
+    expect(run.output).toContain(`port ${taken} (for s3-fake) is taken`);
+    expect(run.output).toContain('KERFCAST_*_PORT');
+    expect(readPids(path.join(scratch, 'pids'))).toEqual({});
+    expect(await portAnswers(taken)).toBe(true); // the other program still has its port
+  });
+
+  it('an unknown service name is refused with exit 2, naming it and the known ones', async () => {
+    const run = await runScript('services-start.sh', { KERFCAST_DATA_DIR: scratch, KERFCAST_SERVICES: 's3-fake mailqueue' });
+    expect(run.code).toBe(2);
+    expect(run.output).toContain('KERFCAST_SERVICES names "mailqueue"; known: mariadb s3-fake smtp-fake');
+    const stop = await runScript('services-stop.sh', { KERFCAST_DATA_DIR: scratch, KERFCAST_SERVICES: 'mailqueue' });
+    expect(stop.code).toBe(2);
+  });
+});
