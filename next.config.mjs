@@ -17,8 +17,9 @@ const nextConfig = {
     authInterrupts: true,
   },
   // Native MariaDB driver and bcrypt stay as Node modules on the server, and so does the
-  // analysis's Clipper build, which finds and instantiates its WebAssembly at run time.
-  serverExternalPackages: ['mysql2', 'bcryptjs', 'js-angusj-clipper'],
+  // analysis's Clipper build, which finds and instantiates its WebAssembly at run time;
+  // piscina starts its worker threads from files of its own package.
+  serverExternalPackages: ['mysql2', 'bcryptjs', 'js-angusj-clipper', 'piscina'],
   async headers() {
     const headers = securityHeaders({ https: isHttpsUrl(process.env.APP_URL), dev: process.env.NODE_ENV === 'development' });
     return [{ source: '/:path*', headers: headers.map(([key, value]) => ({ key, value })) }];

@@ -18,6 +18,8 @@ npx tsx db/migrate.ts
 npx tsx db/seed.ts >/dev/null
 echo "[kerfcast] building the app (next build)"
 npx next build
+# the estimate worker thread's bundle (the server's piscina pool loads it)
+node scripts/build-estimate-worker.mjs
 
 echo
 echo "Kerfcast is starting on $APP_URL"
