@@ -2,9 +2,14 @@
 // two machines with tools and a version snapshot, materials, customers and jobs.
 // Idempotent: rows are found by their natural keys and inserted only when missing;
 // existing rows (a changed role, an edited machine) are left as they are.
+// The demo users share a published password, so the seed runs only in local mode
+// (lib/env.ts: APP_URL on loopback, not a production server unless KERFCAST_LOCAL=1) and
+// against a database on loopback; anywhere else it refuses (issue 18 finding 10, OWASP
+// ASVS 4.0.3 V2.10.1, V14.1).
 import path from 'node:path';
 import bcrypt from 'bcryptjs';
 import { and, eq, sql } from 'drizzle-orm';
+import { env, isLoopbackHost, type Env } from '@/lib/env';
 import { db as defaultDb, closeDb, type Db } from './client';
 import { customers, jobs, machineVersions, machines, materials, shops, tools, users } from './schema';
 import { BCRYPT_COST, DEMO_PASSWORD, demoCustomers, demoJobs, demoMachines, demoMaterials, demoShop, demoUsers } from './seed-data';
@@ -21,7 +26,22 @@ export interface SeedSummary {
   logins: { email: string; role: string; password: string }[];
 }
 
+/** Why the demo seed may not run with these settings, or null when it may. */
+export function seedRefusal(settings: Pick<Env, 'isLocal' | 'DATABASE_URL' | 'APP_URL'> = env): string | null {
+  if (!settings.isLocal) return `not in local mode (APP_URL ${settings.APP_URL}; a production server needs KERFCAST_LOCAL=1 and a loopback APP_URL)`;
+  let host = '';
+  try {
+    host = new URL(settings.DATABASE_URL).hostname;
+  } catch {
+    host = '';
+  }
+  if (!isLoopbackHost(host)) return `the database (${host || 'unknown host'}) is not on this machine's loopback address`;
+  return null;
+}
+
 export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
+  const refusal = seedRefusal();
+  if (refusal) throw new Error(`the demo seed creates users with a published password and runs only on a local install: ${refusal}`);
   const profiles = demoMachines.map((m) => ({ ...m, profile: readProfileFile(path.join(fixturesDir, m.fixture)) }));
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, BCRYPT_COST);
 

@@ -12,6 +12,8 @@ const STATUS_BY_KIND = {
   conflict: 409,
   /** a request body over its size limit (lib/http/route.ts readJson) */
   'too-large': 413,
+  /** a body of a media type the route does not take (lib/http/same-origin.ts) */
+  unsupported: 415,
   invalid: 422,
   'rate-limited': 429,
   internal: 500,

@@ -10,6 +10,7 @@ import { currentUser } from '@/lib/auth/require-role';
 export default async function ShopLayout({ children }: { children: ReactNode }) {
   const user = await currentUser();
   if (!user) redirect('/sign-in');
+  if (user.mustChangePassword) redirect('/change-password');
   return (
     <>
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-10 focus:bg-panel focus:p-3">

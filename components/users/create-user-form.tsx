@@ -6,7 +6,7 @@ import { ActionNotice } from '@/components/ui/notice';
 import { useValidatedAction } from '@/components/ui/use-validated-action';
 import type { ActionState } from '@/lib/http/action-state';
 import { ROLES, ROLE_LABELS } from '@/lib/validation/enums';
-import { createUserSchema } from '@/lib/validation/users';
+import { createUserSchema, PASSWORD_MIN_CHARS } from '@/lib/validation/users';
 
 type Action = (state: ActionState, form: FormData) => Promise<ActionState>;
 
@@ -25,7 +25,7 @@ export function CreateUserForm({ action }: { action: Action }) {
         label="Their password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. Tell it to them yourself rather than by e-mail."
+        hint={`At least ${PASSWORD_MIN_CHARS} characters; common passwords are refused. Tell it to them yourself rather than by e-mail.`}
         required
         errors={fields.password}
       />

@@ -1,10 +1,11 @@
 'use client';
-// Per-user controls on the admin page: change the role, disable or enable. The
-// admin's own row offers neither (the server refuses them too).
+// Per-user controls on the admin page: change the role, disable or enable, set a
+// one-time password. The admin's own row offers none (the server refuses them too).
 import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
 import { IDLE, type ActionState } from '@/lib/http/action-state';
 import { ROLES, ROLE_LABELS, type Role } from '@/lib/validation/enums';
+import { PASSWORD_MIN_CHARS } from '@/lib/validation/users';
 
 type Action = (state: ActionState, form: FormData) => Promise<ActionState>;
 
@@ -13,6 +14,7 @@ interface Props {
   isSelf: boolean;
   changeRole: Action;
   setDisabled: Action;
+  setOneTimePassword: Action;
 }
 
 function Feedback({ state }: { state: ActionState }) {
@@ -26,9 +28,10 @@ function Feedback({ state }: { state: ActionState }) {
   );
 }
 
-export function UserRowControls({ user, isSelf, changeRole, setDisabled }: Props) {
+export function UserRowControls({ user, isSelf, changeRole, setDisabled, setOneTimePassword }: Props) {
   const [roleState, roleAction, rolePending] = useActionState(changeRole, IDLE);
   const [disabledState, disabledAction, disabledPending] = useActionState(setDisabled, IDLE);
+  const [passwordState, passwordAction, passwordPending] = useActionState(setOneTimePassword, IDLE);
   if (isSelf) return <p className="text-sm text-ink-soft">Your own account: only another admin can change its role or disable it.</p>;
   return (
     <div className="flex flex-col gap-2">
@@ -57,8 +60,30 @@ export function UserRowControls({ user, isSelf, changeRole, setDisabled }: Props
           </Button>
         </form>
       </div>
+      <details>
+        <summary className="cursor-pointer text-sm font-bold text-spruce">One-time password…</summary>
+        <form action={passwordAction} className="mt-2 flex flex-wrap items-center gap-2">
+          <input type="hidden" name="userId" value={user.id} />
+          <label htmlFor={`otp-${user.id}`} className="sr-only">
+            One-time password for {user.name}
+          </label>
+          <input
+            id={`otp-${user.id}`}
+            name="oneTimePassword"
+            type="password"
+            autoComplete="new-password"
+            minLength={PASSWORD_MIN_CHARS}
+            placeholder={`${PASSWORD_MIN_CHARS}+ characters`}
+            className="min-h-target rounded-md border-2 border-rule bg-panel px-2"
+          />
+          <Button type="submit" variant="secondary" disabled={passwordPending}>
+            Set, sign them out
+          </Button>
+        </form>
+      </details>
       <Feedback state={roleState} />
       <Feedback state={disabledState} />
+      <Feedback state={passwordState} />
     </div>
   );
 }

@@ -14,13 +14,29 @@ export function signInErrorMessage(reported: string | null | undefined): string 
   return reported === SIGN_IN_RATE_LIMITED_MESSAGE ? SIGN_IN_RATE_LIMITED_MESSAGE : SIGN_IN_FAILED_MESSAGE;
 }
 
-/** Only same-site paths are followed after sign-in, never another origin. */
+const PROBE_ORIGIN = 'http://kerfcast.invalid';
+
+/** true when a browser would leave the app's origin for this path (protocol-relative //host, /\host) */
+function leavesOrigin(path: string): boolean {
+  return path.startsWith('//') || path.startsWith('/\\') || new URL(path, PROBE_ORIGIN).origin !== PROBE_ORIGIN;
+}
+
+/**
+ * The path to go to after sign-in: a same-origin app path only (ASVS 4.0.3 V5.1.5). The
+ * value is normalised the way a browser resolves it ("/.//evil.example", "/jobs/..//x"
+ * and "/%2e//x" all become "//…", another host) and refused, with the fallback (the
+ * role's home), when it is anything but a plain path on this origin: absolute URLs,
+ * "//" and "/\" starts, backslashes or control characters anywhere, the sign-in page and
+ * the API.
+ */
 export function safeCallbackPath(raw: string | null | undefined, fallback = '/jobs'): string {
-  if (!raw) return fallback;
+  if (!raw || raw.length > 2048 || !raw.startsWith('/') || /[\\\u0000-\u001f\u007f]/.test(raw)) return fallback;
   try {
-    const url = new URL(raw, 'http://kerfcast.invalid');
-    if (url.origin !== 'http://kerfcast.invalid' || url.pathname.startsWith('/sign-in') || url.pathname.startsWith('/api/')) return fallback;
-    return `${url.pathname}${url.search}`;
+    if (leavesOrigin(raw)) return fallback;
+    const url = new URL(raw, PROBE_ORIGIN);
+    const path = `${url.pathname}${url.search}`;
+    if (leavesOrigin(path) || url.pathname.startsWith('/sign-in') || url.pathname.startsWith('/api/')) return fallback;
+    return path;
   } catch {
     return fallback;
   }

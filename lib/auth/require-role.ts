@@ -1,11 +1,15 @@
 import 'server-only';
 // The one guard at the top of every route handler and server action. It reads the
-// JWT session, then the user row itself (so a disabled account or a changed role
-// counts at once), and returns the user or throws the typed error: unauthorized
-// (401) when signed out or disabled, forbidden:<what> (403) for a role the table in
+// session, which the next-auth session callback (options.ts) has checked against the
+// session row and the user row, so a disabled account, an ended session or a changed
+// role counts at once; then it returns the user or throws the typed error:
+// unauthorized (401) when signed out, forbidden:password-change (403) while a one-time
+// password has not been replaced yet, forbidden:<what> (403) for a role the table in
 // roles.ts does not allow.
+import { cookies } from 'next/headers';
 import { getServerSession } from 'next-auth';
-import { getUser } from '@/db/queries/users';
+import { decode } from 'next-auth/jwt';
+import { env } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 import type { Role } from '@/lib/validation/enums';
 import { authOptions } from './options';
@@ -14,21 +18,36 @@ import type { SessionUser } from './session-user';
 
 export async function currentUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
-  const claimed = session?.user;
-  if (!claimed || typeof claimed.id !== 'number' || typeof claimed.shopId !== 'number') return null;
-  const row = await getUser(claimed.shopId, claimed.id);
-  if (!row || row.disabled) return null;
-  return { id: row.id, shopId: row.shopId, role: row.role, name: row.name, email: row.email };
+  const user = session?.user;
+  if (!user || typeof user.id !== 'number' || typeof user.shopId !== 'number') return null;
+  return user;
 }
 
-export async function requireRole(roles: readonly Role[], what = 'page'): Promise<SessionUser> {
+/** The id of the user_sessions row behind this request's token (to keep it when others end). */
+export async function currentSessionId(): Promise<string | null> {
+  const jar = await cookies();
+  const token = jar.get('__Secure-next-auth.session-token')?.value ?? jar.get('next-auth.session-token')?.value;
+  if (!token) return null;
+  const decoded = await decode({ token, secret: env.AUTH_SECRET }).catch(() => null);
+  return typeof decoded?.sid === 'string' ? decoded.sid : null;
+}
+
+export const PASSWORD_CHANGE_FIRST = 'Choose a new password before going on: your password was set by an admin for one sign-in.';
+
+export interface GuardOptions {
+  /** the password change itself: open to a user who must still replace a one-time password */
+  duringPasswordChange?: boolean;
+}
+
+export async function requireRole(roles: readonly Role[], what = 'page', options: GuardOptions = {}): Promise<SessionUser> {
   const user = await currentUser();
   if (!user) throw new AppError('unauthorized', 'Sign in to continue.');
+  if (user.mustChangePassword && !options.duringPasswordChange) throw new AppError('forbidden:password-change', PASSWORD_CHANGE_FIRST);
   if (!roles.includes(user.role)) throw new AppError(`forbidden:${what}`, 'Your role does not allow this.');
   return user;
 }
 
-const SUBJECT: Record<string, string> = { jobs: 'job', machines: 'machine', customers: 'customer', users: 'user', programs: 'program', estimates: 'estimate', materials: 'material' };
+const SUBJECT: Record<string, string> = { jobs: 'job', machines: 'machine', customers: 'customer', users: 'user', programs: 'program', estimates: 'estimate' };
 
 /** requireRole with the roles looked up in the table, e.g. requireAction('jobs:write'). */
 export function requireAction(action: Action): Promise<SessionUser> {

@@ -18,6 +18,11 @@
 // |            |                                     | machines read, materials read;                     |
 // |            |                                     | job status: start run, finish run                  |
 //
+// What an action reads along with its rows (READS_ALONG below): jobs:read gives every role
+// the job's customer name, material and machine, because an operator must know whose job
+// is on the table (issue 18 finding 11, decided: yes, the name only); the customer's
+// record itself (contact, notes) needs customers:read, which operators do not have.
+//
 // The job status steps (draft → programmed → quoted → accepted → scheduled → running →
 // done, and cancelled) are in lib/jobs/status-moves.ts; each step names one action here.
 import type { Role } from '@/lib/validation/enums';
@@ -57,6 +62,11 @@ export const ACTIONS = {
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof ACTIONS;
+
+/** Fields of other resources an action shows with its own rows, by decision (see the note above). */
+export const READS_ALONG: Partial<Record<Action, readonly string[]>> = {
+  'jobs:read': ['customer name', 'material name', 'machine name'],
+};
 
 export interface PageRule {
   href: string;

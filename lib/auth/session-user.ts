@@ -1,5 +1,5 @@
-// The signed-in user as the JWT session carries it, plus the next-auth type
-// augmentation that puts those fields on the session and the token.
+// The signed-in user as the session gives it, plus the next-auth type augmentation that
+// puts those fields on the session and the token.
 import type { Role } from '@/lib/validation/enums';
 
 export interface SessionUser {
@@ -8,6 +8,8 @@ export interface SessionUser {
   role: Role;
   name: string;
   email: string;
+  /** signed in with a one-time password: only choosing a new one is allowed */
+  mustChangePassword: boolean;
 }
 
 declare module 'next-auth' {
@@ -17,6 +19,7 @@ declare module 'next-auth' {
   interface User {
     shopId: number;
     role: Role;
+    mustChangePassword: boolean;
   }
 }
 
@@ -25,5 +28,7 @@ declare module 'next-auth/jwt' {
     uid?: number;
     shopId?: number;
     role?: Role;
+    /** the user_sessions row of this sign-in */
+    sid?: string;
   }
 }

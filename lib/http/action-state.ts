@@ -2,6 +2,7 @@
 // message and field issues. runAction turns a thrown AppError into that state; any
 // other failure is logged and reported as a generic message.
 import { isAppError, type FieldErrors } from '@/lib/errors';
+import { logUnexpected } from './log-error';
 
 export interface ActionState {
   status: 'idle' | 'ok' | 'error';
@@ -18,7 +19,7 @@ export async function runAction(body: () => Promise<string>): Promise<ActionStat
     return { status: 'ok', message: await body(), at: Date.now() };
   } catch (error) {
     if (isAppError(error)) return { status: 'error', message: error.message, fields: error.fields, at: Date.now() };
-    console.error('[kerfcast] unexpected error in a server action', error);
+    logUnexpected('a server action', error);
     return { status: 'error', message: 'Something went wrong on the server. Try again.', at: Date.now() };
   }
 }

@@ -1,17 +1,22 @@
 import 'server-only';
 // The frame of a thin route handler: run the body, answer JSON, and turn a thrown
 // AppError into { error: { code, message, fields? } } with its status. Anything
-// else is logged and answered as a plain 500, never as a stack trace. JSON bodies are
-// read with a size limit (JSON_BODY_LIMIT_BYTES).
+// else is logged (route and error code only, lib/http/log-error.ts) and answered as a
+// plain 500, never as a stack trace. JSON bodies are read with a size limit
+// (JSON_BODY_LIMIT_BYTES). State-changing requests (POST, PUT, PATCH, DELETE) must come
+// from the app's own pages and carry JSON or multipart/form-data (lib/http/same-origin.ts);
+// a handler wrapped in handle() gets that check without doing anything.
 import { NextResponse } from 'next/server';
 import { env } from '@/lib/env';
 import { AppError, isAppError } from '@/lib/errors';
+import { logUnexpected } from './log-error';
+import { crossSiteWriteError } from './same-origin';
 
 export function json<T>(data: T, status = 200): NextResponse {
   return NextResponse.json(data, { status, headers: { 'cache-control': 'no-store' } });
 }
 
-export function errorResponse(error: unknown): NextResponse {
+export function errorResponse(error: unknown, route = 'a route handler'): NextResponse {
   if (isAppError(error)) {
     const response = json(error.toBody(), error.status);
     // A body refused part-way is left unread on the socket: close the connection
@@ -20,16 +25,26 @@ export function errorResponse(error: unknown): NextResponse {
     if (error.status === 413) response.headers.set('connection', 'close');
     return response;
   }
-  console.error('[kerfcast] unexpected error in a route handler', error);
+  logUnexpected(route, error);
   return json(new AppError('internal', 'Something went wrong on the server.').toBody(), 500);
+}
+
+/**
+ * Throws the 403/415 AppError for a cross-site or wrongly typed state-changing request.
+ * handle() calls it; a handler not wrapped in handle() (a streamed upload) calls it first.
+ */
+export function refuseCrossSiteWrite(request: Request): void {
+  const refused = crossSiteWriteError(request, env.APP_URL);
+  if (refused) throw refused;
 }
 
 export function handle<C>(body: (request: Request, context: C) => Promise<NextResponse>) {
   return async (request: Request, context: C): Promise<NextResponse> => {
     try {
+      refuseCrossSiteWrite(request);
       return await body(request, context);
     } catch (error) {
-      return errorResponse(error);
+      return errorResponse(error, `${request.method} ${new URL(request.url).pathname}`);
     }
   };
 }

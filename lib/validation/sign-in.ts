@@ -3,7 +3,14 @@
 import { z } from '@/lib/validation/zod';
 
 export const signInSchema = z.object({
-  email: z.string({ error: 'Enter your e-mail.' }).trim().toLowerCase().min(1, 'Enter your e-mail.').pipe(z.email('Enter an e-mail like name@example.com.')),
+  // 190 characters, as users.email stores: a longer one cannot be an account (issue 18, finding 2c)
+  email: z
+    .string({ error: 'Enter your e-mail.' })
+    .trim()
+    .toLowerCase()
+    .min(1, 'Enter your e-mail.')
+    .max(190, 'E-mail is too long (190 characters at most).')
+    .pipe(z.email('Enter an e-mail like name@example.com.')),
   password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(200, 'Password is too long.'),
 });
 

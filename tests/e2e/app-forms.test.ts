@@ -82,7 +82,7 @@ describe('users (admin)', () => {
     const users = new UsersPage(page, server.baseUrl);
     await users.open();
     await users.create({ ...NEW_USER, password: 'short' });
-    expect(await users.fieldError('Their password')).toBe('Use at least 10 characters.');
+    expect(await users.fieldError('Their password')).toBe('Use at least 12 characters.');
     // Only the server knows the e-mail is taken: its answer comes back as a field error.
     await users.create({ ...NEW_USER, email: 'priya@alder-finch.example' });
     expect(await users.fieldError('E-mail')).toBe('This e-mail is already in use.');

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import bcrypt from 'bcryptjs';
 import { eq } from 'drizzle-orm';
 import { callApi, DEMO_PASSWORD, SESSION_COOKIE, signInOverHttp, startAppServer, type AppServer } from './support/app-server';
+import { clearSignInLimits } from './support/security';
 
 type DbModule = typeof import('@/db/client');
 type Schema = typeof import('@/db/schema');
@@ -43,11 +44,14 @@ beforeAll(async () => {
   const [shop] = await dbm.db.select().from(s.shops).where(eq(s.shops.name, 'Alder & Finch Shopfitting'));
   shopId = shop.id;
   await removeTestUsers();
+  // the failure counters live in the database now and would carry over from earlier runs
+  await clearSignInLimits(dbm.db);
 });
 
 afterAll(async () => {
   if (dbm) {
     await removeTestUsers();
+    await clearSignInLimits(dbm.db);
     await dbm.closeDb();
   }
   await server?.stop();

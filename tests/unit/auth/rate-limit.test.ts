@@ -1,35 +1,38 @@
-// Sliding-window limiter of failed sign-ins, driven with explicit clock values.
+// Keys and limits of the shared sign-in counters (issue 18 finding 2c, OWASP ASVS 4.0.3
+// V2.2.1). The counting itself runs in MariaDB: tests/integration/app-security-sign-in.test.ts.
+import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { signInLimits, SlidingWindowLimiter } from '@/lib/auth/rate-limit';
+import { limitKey, signInLimits } from '@/lib/auth/rate-limit';
+import { signInSchema } from '@/lib/validation/sign-in';
 
-const MIN = 60_000;
-
-describe('SlidingWindowLimiter', () => {
-  it('blocks at the limit and frees the key as the oldest failure leaves the window', () => {
-    const limiter = new SlidingWindowLimiter({ windowMs: 15 * MIN, maxFailures: 3 });
-    limiter.recordFailure('k', 0);
-    limiter.recordFailure('k', 5 * MIN);
-    expect(limiter.isBlocked('k', 6 * MIN)).toBe(false);
-    limiter.recordFailure('k', 10 * MIN);
-    expect(limiter.isBlocked('k', 10 * MIN)).toBe(true);
-    // the first failure (t=0) leaves the window at t=15 min; a fixed window would not slide
-    expect(limiter.retryAfterS('k', 10 * MIN)).toBe(5 * 60);
-    expect(limiter.isBlocked('k', 15 * MIN - 1)).toBe(true);
-    expect(limiter.isBlocked('k', 15 * MIN)).toBe(false);
-    expect(limiter.retryAfterS('k', 15 * MIN)).toBe(0);
+describe('sign-in limit keys', () => {
+  it('are 64 hex characters whatever the value, and carry neither the e-mail nor the address', () => {
+    const email = `${'a'.repeat(180)}@x.example`;
+    for (const [kind, value] of [['email', email], ['ip', '2001:db8::1'], ['ip', '203.0.113.7']] as const) {
+      const key = limitKey(kind, value);
+      expect(key).toMatch(/^[0-9a-f]{64}$/);
+      expect(key).not.toContain(value);
+    }
   });
 
-  it('keeps keys apart and forgets a key on reset', () => {
-    const limiter = new SlidingWindowLimiter({ windowMs: MIN, maxFailures: 1 });
-    limiter.recordFailure('a', 0);
-    expect(limiter.isBlocked('a', 1)).toBe(true);
-    expect(limiter.isBlocked('b', 1)).toBe(false);
-    limiter.reset('a');
-    expect(limiter.isBlocked('a', 2)).toBe(false);
+  it('is SHA-256 (FIPS 180-4) of kind:value, so an e-mail and an address never share a key', () => {
+    // FIPS 180-4 / NIST CSRC example: SHA-256("abc") = ba7816bf…f20015ad; node:crypto is the reference implementation here.
+    expect(createHash('sha256').update('abc').digest('hex')).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
+    expect(limitKey('email', 'x')).toBe(createHash('sha256').update('email:x').digest('hex'));
+    expect(limitKey('email', '203.0.113.7')).not.toBe(limitKey('ip', '203.0.113.7'));
   });
 
-  it('allows fewer failures per e-mail than per address', () => {
-    expect(signInLimits.perEmail.maxFailures).toBe(5);
-    expect(signInLimits.perIp.maxFailures).toBeGreaterThan(signInLimits.perEmail.maxFailures);
+  it('an e-mail longer than the 190 characters users.email stores is refused before it is counted', () => {
+    const long = `${'a'.repeat(181)}@x.example`; // 191 characters
+    expect(signInSchema.safeParse({ email: long, password: 'x' }).success).toBe(false);
+    expect(signInSchema.safeParse({ email: long.slice(1), password: 'x' }).success).toBe(true);
+  });
+});
+
+describe('sign-in limits', () => {
+  it('per e-mail 5 in 15 minutes, per address more (a shared workshop address), same window', () => {
+    expect(signInLimits.perEmail).toEqual({ windowS: 900, maxAttempts: 5 });
+    expect(signInLimits.perIp.maxAttempts).toBeGreaterThan(signInLimits.perEmail.maxAttempts);
+    expect(signInLimits.perIp.windowS).toBe(signInLimits.perEmail.windowS);
   });
 });

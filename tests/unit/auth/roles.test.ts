@@ -77,3 +77,12 @@ describe('navigation', () => {
     for (const role of ROLES) expect(homeFor(role)).toBe('/jobs');
   });
 });
+
+describe('what a read shows along with its rows (issue 18 finding 11)', () => {
+  it('an operator reads jobs with the customer name, not the customer records', async () => {
+    const { READS_ALONG } = await import('@/lib/auth/roles');
+    expect(READS_ALONG['jobs:read']).toContain('customer name');
+    expect(canDo('operator', 'jobs:read')).toBe(true);
+    expect(canDo('operator', 'customers:read')).toBe(false);
+  });
+});

@@ -20,7 +20,7 @@ describe('createUserSchema', () => {
     if (result.success) return;
     const fields = fieldErrors(result.error);
     expect(Object.keys(fields).sort()).toEqual(['email', 'name', 'password', 'role']);
-    expect(fields.password).toEqual(['Use at least 10 characters.']);
+    expect(fields.password).toEqual(['Use at least 12 characters.']);
   });
 
   it('refuses passwords over 72 bytes, because bcrypt ignores the rest', () => {

@@ -7,7 +7,7 @@ import { UserRowControls } from '@/components/users/user-row-controls';
 import { listUsers } from '@/db/queries/users';
 import { guardPage } from '@/lib/auth/page-guard';
 import { ROLE_LABELS } from '@/lib/validation/enums';
-import { changeRoleAction, createUserAction, setDisabledAction } from './actions';
+import { changeRoleAction, createUserAction, setDisabledAction, setOneTimePasswordAction } from './actions';
 
 export const metadata: Metadata = { title: 'Users' };
 
@@ -32,6 +32,8 @@ export default async function UsersPage() {
               cell: (u) =>
                 u.disabled ? (
                   <span className="whitespace-nowrap font-bold text-ink-soft">✕ Disabled</span>
+                ) : u.mustChangePassword ? (
+                  <span className="whitespace-nowrap font-bold text-caution">✓ Enabled, one-time password</span>
                 ) : (
                   <span className="whitespace-nowrap font-bold text-ok">✓ Enabled</span>
                 ),
@@ -45,6 +47,7 @@ export default async function UsersPage() {
                   isSelf={u.id === admin.id}
                   changeRole={changeRoleAction}
                   setDisabled={setDisabledAction}
+                  setOneTimePassword={setOneTimePasswordAction}
                 />
               ),
             },

@@ -1,5 +1,7 @@
-// GET /api/users/:userId and PATCH { role?, disabled? } (admin); another shop's user is 404.
-import { changeUserRole, getUser, setUserDisabled } from '@/db/queries/users';
+// GET /api/users/:userId and PATCH { role?, disabled?, oneTimePassword? } (admin); another
+// shop's user is 404. A one-time password ends the user's sessions and must be replaced
+// at their next sign-in.
+import { changeUserRole, getUser, setOneTimePassword, setUserDisabled } from '@/db/queries/users';
 import { requireAction } from '@/lib/auth/require-role';
 import { AppError } from '@/lib/errors';
 import { handle, json, readJson } from '@/lib/http/route';
@@ -23,5 +25,6 @@ export const PATCH = handle(async (request, { params }: Context) => {
   const input = parseOrThrow(updateUserSchema, await readJson(request), 'user');
   let user = input.role !== undefined ? await changeUserRole(admin.shopId, admin.id, userId, input.role) : null;
   if (input.disabled !== undefined) user = await setUserDisabled(admin.shopId, admin.id, userId, input.disabled);
+  if (input.oneTimePassword !== undefined) user = await setOneTimePassword(admin.shopId, admin.id, userId, input.oneTimePassword);
   return json({ user });
 });
