@@ -1,9 +1,13 @@
 // Local stand-in for the hosted S3 bucket: s3rver on loopback, data in .data/s3, the
 // bucket kerfcast-programs created at start. The app reaches it only through
-// @aws-sdk/client-s3 (lib/storage/s3.ts), exactly as it reaches the real service.
+// @aws-sdk/client-s3 (lib/storage/s3.ts), exactly as it reaches the real service. In
+// front of s3rver, scripts/lib/fake-guard.ts refuses what a web page could send:
+// another Host, a browser's request, a form upload, anything unsigned.
 import { createRequire } from 'node:module';
 import fs from 'node:fs';
 import path from 'node:path';
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import { s3Refusal } from './lib/fake-guard';
 import { dataDir, portFromEnv, writePidFile } from './lib/pid-file';
 
 interface S3rverOptions {
@@ -13,9 +17,12 @@ interface S3rverOptions {
   silent: boolean;
   configureBuckets: { name: string; configs: string[] }[];
 }
+type Handler = (req: IncomingMessage, res: ServerResponse) => void;
 interface S3rverInstance {
   run(): Promise<{ address: string; port: number }>;
   close(): Promise<void>;
+  /** Koa's request handler; s3rver's listen() attaches what this returns */
+  callback(): Handler;
 }
 
 // s3rver ships no type declarations; the two methods used are typed above.
@@ -33,6 +40,18 @@ const server = new S3rver({
   silent: false,
   configureBuckets: [{ name: bucket, configs: [] }],
 });
+
+// s3rver extends Koa and serves callback()'s handler: the guard goes in front of it.
+const koaCallback = server.callback.bind(server);
+server.callback = () => {
+  const inner = koaCallback();
+  return (req, res) => {
+    const refusal = s3Refusal(req, port);
+    if (!refusal) return inner(req, res);
+    res.writeHead(403, { 'content-type': 'text/plain; charset=utf-8' });
+    res.end(`s3-fake: ${refusal}\n`);
+  };
+};
 
 server
   .run()

@@ -4,8 +4,11 @@
 # S3 fake (4569) and the SMTP capture (2525, captured mail as JSON on 8025). Running it
 # again leaves live services alone. KERFCAST_DATA_DIR and KERFCAST_SERVICES: see
 # lib/common.sh. Databases `kerfcast` and `kerfcast_test` and the
-# user kerfcast/kerfcast are created here; that user may create and drop any database
-# whose name starts with "kerfcast" (the migration test uses scratch databases).
+# user kerfcast are created here; that user may create and drop any database whose name
+# starts with "kerfcast" (the migration test uses scratch databases). Its password is
+# random per install, made on the first start into .data/db-password (mode 0600), where
+# lib/env.ts, scripts/test.sh and the tests read it. An install made before that keeps
+# its old password until KERFCAST_DB_PASSWORD_ROTATE=1 asks for a random one.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 mkdir -p "$PIDS" "$LOGS" "$RUN" "$DATA/s3" "$DATA/mail" "$DATA/tmp"
@@ -81,17 +84,42 @@ start_mariadb() {
   fi
 }
 
+DB_PASSWORD_FILE="$DATA/db-password"
+# Decided before MariaDB starts, which makes the data folder of a fresh install.
+DB_FOLDER_EXISTED=0
+[[ -d "$DATA/mariadb/mysql" ]] && DB_FOLDER_EXISTED=1
+
+# db_password: prints the install's database password, making it on first use. Letters
+# and digits only, so it needs no quoting in SQL or in a URL.
+db_password() {
+  if [[ ! -s "$DB_PASSWORD_FILE" || "${KERFCAST_DB_PASSWORD_ROTATE:-}" == 1 ]]; then
+    local password
+    if [[ ! -s "$DB_PASSWORD_FILE" && "$DB_FOLDER_EXISTED" == 1 && "${KERFCAST_DB_PASSWORD_ROTATE:-}" != 1 ]]; then
+      # An install from before per-install passwords: other shells may still use the old one.
+      password=kerfcast
+      log "this install keeps its old database password; KERFCAST_DB_PASSWORD_ROTATE=1 gives it a random one" >&2
+    else
+      password="$(head -c 48 /dev/urandom | base64 | tr -dc 'A-Za-z0-9' | head -c 32)"
+    fi
+    (umask 077 && printf '%s\n' "$password" >"$DB_PASSWORD_FILE.tmp") && mv "$DB_PASSWORD_FILE.tmp" "$DB_PASSWORD_FILE"
+  fi
+  tr -dc 'A-Za-z0-9' <"$DB_PASSWORD_FILE"
+}
+
 prepare_databases() {
-  # Idempotent: IF NOT EXISTS everywhere; the password is re-set so a changed default heals.
-  mariadb_root <<'SQL'
-CREATE DATABASE IF NOT EXISTS `kerfcast` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-CREATE DATABASE IF NOT EXISTS `kerfcast_test` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-CREATE USER IF NOT EXISTS 'kerfcast'@'127.0.0.1' IDENTIFIED BY 'kerfcast';
-CREATE USER IF NOT EXISTS 'kerfcast'@'localhost' IDENTIFIED BY 'kerfcast';
-ALTER USER 'kerfcast'@'127.0.0.1' IDENTIFIED BY 'kerfcast';
-ALTER USER 'kerfcast'@'localhost' IDENTIFIED BY 'kerfcast';
-GRANT ALL PRIVILEGES ON `kerfcast%`.* TO 'kerfcast'@'127.0.0.1';
-GRANT ALL PRIVILEGES ON `kerfcast%`.* TO 'kerfcast'@'localhost';
+  local password
+  password="$(db_password)"
+  [[ -n "$password" ]] || die "$DB_PASSWORD_FILE holds no usable password (letters and digits); delete it to make a new one"
+  # Idempotent: IF NOT EXISTS everywhere; the password is re-set so a changed one heals.
+  mariadb_root <<SQL
+CREATE DATABASE IF NOT EXISTS \`kerfcast\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE DATABASE IF NOT EXISTS \`kerfcast_test\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE USER IF NOT EXISTS 'kerfcast'@'127.0.0.1' IDENTIFIED BY '$password';
+CREATE USER IF NOT EXISTS 'kerfcast'@'localhost' IDENTIFIED BY '$password';
+ALTER USER 'kerfcast'@'127.0.0.1' IDENTIFIED BY '$password';
+ALTER USER 'kerfcast'@'localhost' IDENTIFIED BY '$password';
+GRANT ALL PRIVILEGES ON \`kerfcast%\`.* TO 'kerfcast'@'127.0.0.1';
+GRANT ALL PRIVILEGES ON \`kerfcast%\`.* TO 'kerfcast'@'localhost';
 FLUSH PRIVILEGES;
 SQL
 }

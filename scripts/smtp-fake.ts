@@ -2,13 +2,17 @@
 // it as .data/mail/<time>-<id>.eml and serves what was captured as JSON:
 //   GET    http://127.0.0.1:8025/messages  → [{ id, file, date, from, to, subject, text, attachments }]
 //   DELETE http://127.0.0.1:8025/messages  → removes every captured message
-// STARTTLS is switched off so nodemailer talks plain SMTP to it; AUTH is optional.
+// STARTTLS is switched off so nodemailer talks plain SMTP to it; AUTH is optional. The
+// JSON API answers only requests whose Host is loopback with its port and that carry no
+// browser marks (scripts/lib/fake-guard.ts), so a page cannot read captured mail
+// through DNS rebinding.
 import fs from 'node:fs';
 import path from 'node:path';
 import http from 'node:http';
 import { randomBytes } from 'node:crypto';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser, type AddressObject } from 'mailparser';
+import { mailApiRefusal } from './lib/fake-guard';
 import { dataDir, portFromEnv, writePidFile } from './lib/pid-file';
 
 const smtpPort = portFromEnv('KERFCAST_SMTP_PORT', 2525);
@@ -77,6 +81,8 @@ const api = http.createServer((req, res) => {
     res.writeHead(status, { 'content-type': 'application/json' });
     res.end(JSON.stringify(body));
   };
+  const refusal = mailApiRefusal(req, httpPort);
+  if (refusal) return send(403, { error: refusal });
   const url = new URL(req.url ?? '/', `http://127.0.0.1:${httpPort}`);
   if (url.pathname !== '/messages') return send(404, { error: 'use /messages' });
   if (req.method === 'GET') {

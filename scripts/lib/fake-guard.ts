@@ -1,0 +1,52 @@
+// Request checks of the local fakes (issue 18 finding 10; OWASP ASVS 4.0.3 V14.1). The
+// fakes listen on loopback, but a web page in the developer's browser can still reach
+// loopback: with a form post (no CORS preflight), or through DNS rebinding, where a name
+// the page controls is pointed at 127.0.0.1 and its own script then reads the answer.
+// So the fakes answer only:
+// - a Host header naming loopback and their own port (a rebound name fails this);
+// - requests without a browser's marks (Origin, Sec-Fetch-Site), since their clients are
+//   the AWS SDK, nodemailer, scripts and tests, never a page;
+// - for the S3 fake, writes (PUT, POST, DELETE) only when signed (an Authorization
+//   header or a presigned URL's signature), and no form-encoded POST (S3's browser-upload
+//   form); a plain read from a script (the service test lists the buckets) still works.
+import type { IncomingHttpHeaders } from 'node:http';
+
+const LOOPBACK_NAMES = ['127.0.0.1', 'localhost', '[::1]'];
+
+export function hostIsLocal(host: string | undefined, port: number): boolean {
+  if (!host) return false;
+  return LOOPBACK_NAMES.some((name) => host.toLowerCase() === `${name}:${port}`);
+}
+
+export function fromBrowser(headers: IncomingHttpHeaders): boolean {
+  return headers.origin !== undefined || headers['sec-fetch-site'] !== undefined || headers['sec-fetch-mode'] !== undefined;
+}
+
+export interface FakeRequest {
+  method?: string;
+  url?: string;
+  headers: IncomingHttpHeaders;
+}
+
+/** Why the mail capture's JSON API refuses the request, or null. */
+export function mailApiRefusal(req: FakeRequest, port: number): string | null {
+  if (!hostIsLocal(req.headers.host, port)) return 'host not allowed: use 127.0.0.1 or localhost with this port';
+  if (fromBrowser(req.headers)) return 'browser requests are not served';
+  return null;
+}
+
+const FORM_TYPES = ['multipart/form-data', 'application/x-www-form-urlencoded', 'text/plain'];
+
+/** Why the S3 fake refuses the request, or null. */
+export function s3Refusal(req: FakeRequest, port: number): string | null {
+  const refusal = mailApiRefusal(req, port);
+  if (refusal) return refusal;
+  const type = String(req.headers['content-type'] ?? '').split(';')[0].trim().toLowerCase();
+  if ((req.method ?? 'GET').toUpperCase() === 'POST' && FORM_TYPES.includes(type)) return 'form uploads are not served';
+  if (['GET', 'HEAD'].includes((req.method ?? 'GET').toUpperCase())) return null;
+  const auth = String(req.headers.authorization ?? '');
+  const query = new URL(req.url ?? '/', 'http://fake.invalid').searchParams;
+  const signed = /^(AWS4-HMAC-SHA256|AWS) \S/.test(auth) || query.has('X-Amz-Signature') || query.has('Signature');
+  if (!signed) return 'unsigned writes are not served';
+  return null;
+}
