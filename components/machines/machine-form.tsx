@@ -87,7 +87,7 @@ function AxesInputs({ def, unit, start, fields }: { def: ProfileFieldDef; unit: 
           return (
             <div key={axis} className="flex flex-col gap-1">
               <label htmlFor={id} className="text-sm font-bold">
-                <span className="sr-only">{def.title} </span>
+                <span className="sr-only">{def.subject} </span>
                 {axis.toUpperCase()}
               </label>
               <input

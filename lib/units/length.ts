@@ -44,13 +44,14 @@ export function toMm(value: number, unit: LengthUnit): number {
 }
 
 /**
- * The text an input shows for a stored value: mm as stored; inches to 10 significant
- * digits, enough that typing the shown text back gives the stored mm to well under a
- * nanometre (the forms keep the stored value of a field nobody edited in any case).
+ * The text an input shows for a stored value: mm as stored; inches as they read on the
+ * pages (formatLength: 4 decimals, at least 3 significant digits). Nothing is lost by the
+ * shorter text: a form sends the stored mm of every field whose text nobody changed, and
+ * a changed field is taken as typed.
  */
 export function inputText(valueMm: number, unit: LengthUnit): string {
   if (unit === 'mm') return String(valueMm);
-  return String(Number(fromMm(valueMm, unit).toPrecision(10)));
+  return formatLength(valueMm, unit);
 }
 
 /**

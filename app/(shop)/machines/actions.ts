@@ -33,7 +33,7 @@ export async function saveMachineAction(_previous: ActionState, form: FormData):
       const input = parseMachineCreate({ ...profile, ...settings });
       const machine = await createMachine(user.shopId, input.profile, input.settings);
       revalidatePath('/machines');
-      goTo = `/machines/${machine.id}?saved=created`;
+      goTo = `/machines/${machine.id}?saved=created&v=1`;
       return `${machine.name} added as version 1.`;
     }
     const machineId = parseId(flat.machineId, 'machine');
@@ -41,7 +41,7 @@ export async function saveMachineAction(_previous: ActionState, form: FormData):
     const saved = await updateMachine(user.shopId, machineId, patch);
     revalidatePath('/machines');
     revalidatePath(`/machines/${machineId}`);
-    goTo = `/machines/${machineId}?saved=${saved.versioned ? 'version' : 'same'}`;
+    goTo = `/machines/${machineId}?saved=${saved.versioned ? 'version' : 'same'}&v=${saved.version}`;
     return saved.versioned ? `Saved as version ${saved.version}.` : 'Saved. No profile field changed, so the version stays the same.';
   });
   if (state.status === 'ok' && goTo) redirect(goTo);
@@ -109,7 +109,7 @@ export async function updateToolAction(_previous: ActionState, form: FormData): 
     const patch = parseProfileOrThrow(toolPatchSchema, toolInput(flat), 'tool');
     const saved = await updateTool(user.shopId, machineId, toolId, patch);
     revalidatePath(`/machines/${machineId}`);
-    goTo = `/machines/${machineId}?saved=${saved.versioned ? 'version' : 'same'}`;
+    goTo = `/machines/${machineId}?saved=${saved.versioned ? 'tool-version' : 'tool-same'}&v=${saved.version}`;
     return saved.versioned ? `Tool saved; the profile is now version ${saved.version}.` : 'Tool saved. Only the description changed, so the version stays the same.';
   });
   if (state.status === 'ok' && goTo) redirect(goTo);

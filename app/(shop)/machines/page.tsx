@@ -32,7 +32,7 @@ function machineColumns(unit: LengthUnit, currency: string) {
     {
       key: 'travel',
       header: `Travel X × Y × Z (${unitSymbol('length', unit)})`,
-      cell: (m: MachineSummary) => <span className="figure">{[m.travelXMm, m.travelYMm, m.travelZMm].map((v) => formatLength(v, unit)).join(' × ')}</span>,
+      cell: (m: MachineSummary) => <span className="figure whitespace-nowrap">{[m.travelXMm, m.travelYMm, m.travelZMm].map((v) => formatLength(v, unit)).join(' × ')}</span>,
     },
     { key: 'hold', header: 'Default hold-down', cell: (m: MachineSummary) => HOLD_DOWN_LABELS[m.defaultHoldDown] },
     { key: 'rate', header: `Hourly rate (${currency})`, numeric: true, cell: (m: MachineSummary) => formatMinor(m.hourlyRateMinor, currency) },

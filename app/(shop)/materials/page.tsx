@@ -56,7 +56,7 @@ export default async function MaterialsPage({ searchParams }: { searchParams: Pr
                   key: 'sheet',
                   header: `Sheet W × L (${u})`,
                   numeric: true,
-                  cell: (m) => `${formatLength(m.sheetWidthMm, shop.lengthUnit)} × ${formatLength(m.sheetLengthMm, shop.lengthUnit)}`,
+                  cell: (m) => <span className="whitespace-nowrap">{`${formatLength(m.sheetWidthMm, shop.lengthUnit)} × ${formatLength(m.sheetLengthMm, shop.lengthUnit)}`}</span>,
                 },
                 { key: 'cost', header: `Cost per sheet (${shop.currency})`, numeric: true, cell: (m) => formatMinor(m.costPerSheetMinor, shop.currency) },
                 { key: 'jobs', header: 'Jobs', numeric: true, cell: (m) => m.jobCount },

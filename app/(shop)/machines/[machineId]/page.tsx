@@ -41,17 +41,17 @@ export default async function MachinePage({ params, searchParams }: Props) {
   const profile = machineRowToProfile(machine, machine.tools);
   const nextNumber = machine.tools.reduce((n, t) => Math.max(n, t.number), 0) + 1;
 
-  const saved = query.saved;
-  const savedNotice =
-    saved === 'created'
-      ? `${machine.name} added as version 1. Add its tools below.`
-      : saved === 'version'
-        ? `Saved as version ${machine.version}.`
-        : saved === 'same'
-          ? `Saved. No profile field changed, so the profile stays version ${machine.version}.`
-          : saved === 'tool-removed'
-            ? `Tool removed; the profile is now version ${machine.version}.`
-            : null;
+  // the version the save produced travels in the address, so the message stays true after later changes on the page
+  const savedVersion = typeof query.v === 'string' && /^\d+$/.test(query.v) ? Number(query.v) : machine.version;
+  const SAVED: Record<string, string> = {
+    created: `${machine.name} added as version 1. Add its tools below.`,
+    version: `Saved as version ${savedVersion}.`,
+    same: `Saved. No profile field changed, so the profile stays version ${savedVersion}.`,
+    'tool-version': `Tool saved; the profile is now version ${savedVersion}.`,
+    'tool-same': `Tool saved. Only the description changed, so the profile stays version ${savedVersion}.`,
+    'tool-removed': `Tool removed; the profile is now version ${savedVersion}.`,
+  };
+  const savedNotice = typeof query.saved === 'string' ? (SAVED[query.saved] ?? null) : null;
 
   return (
     <>
