@@ -45,7 +45,7 @@ describe('trade check: a part of about 1.3 in² under vacuum', () => {
   // too little to resist a router bit
   const area = 1.3 * MM_PER_IN ** 2;
 
-  it('holds about 5 lbf (22 N) laterally with the default μ and vacuum level', () => {
+  it('holds about 5 lbf (22 N) laterally with the default μ and vacuum level (μ 0.45, wood on wood, and 18 inHg: common practice, docs/references.md §4)', () => {
     const hold = vacuumLateralHoldN(DEFAULT_SETTINGS.defaultVacuumKpa, area, DEFAULT_SETTINGS.frictionMu);
     expect(hold).toBeGreaterThan(20);
     expect(hold).toBeLessThan(25);

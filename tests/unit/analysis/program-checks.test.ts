@@ -27,7 +27,7 @@ describe('program checks', () => {
     expect(ofKind(analyze(w.build(), job(18)), 'spindle-off')).toHaveLength(0);
   });
 
-  it('spoilboard-depth: 2 mm below the bottom is past the 1 mm allowance; 0.3 mm is not', () => {
+  it('spoilboard-depth: 2 mm below the bottom is past the 1 mm allowance; 0.3 mm is not (the allowance is our own default, neither sourced nor computed; through-cuts commonly go a few tenths into the spoilboard: common practice, docs/references.md §5)', () => {
     const w = new ProgramWriter();
     w.rect(0, 0, 50, 50, [-18.3]);
     w.rect(100, 0, 150, 50, [-20]);
@@ -121,7 +121,7 @@ describe('program checks', () => {
     expect(span(true)).toHaveLength(0);
   });
 
-  it('straight-plunge: 10 mm straight down with a 6.35 mm tool; a ramp is not', () => {
+  it('straight-plunge: 10 mm straight down with a 6.35 mm tool; a ramp is not (the 1 × D threshold is our own; ramp and helix entries spare the tool\'s end: common practice, docs/references.md §5)', () => {
     const w = new ProgramWriter();
     w.rapid(10, 10, 5).feed(10, 10, -10, 600).retract();
     w.rapid(100, 10, 5).feed(100, 10, 0, 600).feed(150, 10, -10, 600).retract();
@@ -144,7 +144,7 @@ describe('program checks', () => {
     expect(run('G1 Z-15 F600')).toHaveLength(1);
   });
 
-  it('sheet-lift: an up-cut tool through a 3 mm sheet under clamps; not under vacuum, not with a down-cut tool', () => {
+  it('sheet-lift: an up-cut tool through a 3 mm sheet under clamps; not under vacuum, not with a down-cut tool, not in 18 mm (the 6.35 mm thin-sheet threshold: common practice, no published threshold; docs/references.md §5)', () => {
     const make = (tool: number) => {
       const w = new ProgramWriter();
       w.tool = tool;

@@ -1,11 +1,13 @@
 // The role table of lib/auth/roles.ts against the product's rules, written out here
-// independently as a matrix. The expectations come from the product brief's table of who uses
-// Kerfcast for what, restated in docs/references.md §9: the admin sets up users and machines;
-// the programmer builds jobs and uploads their programs; the estimator quotes from stored
-// estimates; the operator runs jobs. Where this matrix differs from the brief (kept as the code
-// has it until one side is corrected): machines:write for the programmer, where the brief gives
-// machine set-up to the admin alone. estimates:write for the estimator (asking for an estimate
-// on another machine) is inferred, not stated in the brief.
+// independently as a matrix. The expectations come from the product brief, PRODUCT.md: its
+// table of who uses Kerfcast for what, and the steps of "The main job, end to end" (1 Set-up
+// by the admin: users, machine profiles, tools, materials; 2 Job by the programmer; the
+// estimator's quote; the operator's run), restated in docs/references.md §9. A row marked
+// "brief:" follows PRODUCT.md; "inferred:" is our reading where it says nothing. Where this
+// matrix differs from PRODUCT.md (docs/references.md §9 lists it until one side is
+// corrected): machines:write and materials:write for the programmer, where PRODUCT.md gives
+// machine profiles and materials to the admin's set-up alone. estimates:write for the
+// estimator (asking for an estimate on another machine) is inferred, not stated there.
 import { describe, expect, it } from 'vitest';
 import { ACTIONS, canDo, canSee, homeFor, PAGES, pagesFor, type Action } from '@/lib/auth/roles';
 import { ROLES, type Role } from '@/lib/validation/enums';
@@ -28,9 +30,9 @@ const MATRIX: Record<Action, [boolean, boolean, boolean, boolean]> = {
   'estimates:read':          [Y, Y, Y, Y],
   'estimates:write':         [Y, Y, Y, N],
   'machines:read':           [Y, Y, Y, Y],
-  'machines:write':          [Y, Y, N, N],
+  'machines:write':          [Y, Y, N, N], // differs from PRODUCT.md (Set-up is the admin's): see the header
   'materials:read':          [Y, Y, Y, Y], // brief: the operator knows the sheet; materials prefill jobs
-  'materials:write':         [Y, Y, N, N], // brief: Set-up (admin) lists materials; kept with machines:write
+  'materials:write':         [Y, Y, N, N], // differs from PRODUCT.md (Set-up, admin, lists materials): kept with machines:write
   'customers:read':          [Y, Y, Y, N],
   'customers:write':         [Y, Y, Y, N],
   'users:read':              [Y, N, N, N],

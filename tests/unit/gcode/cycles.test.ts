@@ -81,7 +81,7 @@ describe('other cycles (NISTIR 6556 §3.5.16; G73 a dialect extension)', () => {
     expect(rapidsToR).toBe(3); // to R before the first peck, and after the first two
   });
 
-  it('G73 breaks chips with short lifts instead of returning to R', () => {
+  it('G73 breaks chips with short lifts (0.254 mm: from memory; on machines a setting, common practice) instead of returning to R', () => {
     // G73 is not in NISTIR 6556; its 0.254 mm lift is our own value, neither sourced nor computed (from memory)
     const r = run('G21 F100\nG0 Z5\nG73 X0 Y0 Z-6 R1 Q2.5\nM2');
     expect(points(r, [MoveKind.feed]).map((p) => p[3])).toEqual([-1.5, -4, -6]);

@@ -61,7 +61,7 @@ describe('timed records', () => {
 });
 
 describe('breakdown by kind', () => {
-  it('rapid, air (at or above the top), plunge (steeper than 45° down), cutting (below the top)', () => {
+  it('rapid, air (at or above the top), plunge (steeper than 45° down: our own line, neither sourced nor computed; ramps enter at a few degrees, plunges straight down, common practice), cutting (below the top)', () => {
     const m = new Moves({ x: 0, y: 0, z: 10 })
       .rapid(0, 0, 2) // rapid
       .feed(50, 0, 2, 3000) // air
