@@ -348,6 +348,18 @@ describe('an upload stores the file, its figures and its rows', () => {
     expect(list.body.programs[0].latest.estimate?.id).toBe(r.body.programs[0].estimate?.id);
   });
 
+  it('the same text in another job with the same settings is answered by the stored estimate, and listed with it', async () => {
+    const otherJob = await createJob('Programs test: same brackets, second order');
+    const r = await upload(jars.priya, otherJob, [{ name: 'brackets-again.nc', bytes: fixture }]);
+    expect(r.status, JSON.stringify(r.body)).toBe(201);
+    expect(r.body.programs[0].id).not.toBe(programId);
+    expect(r.body.programs[0].estimate?.id).toBe(firstEstimateId);
+    const list = await callApi<ListAnswer>(jars.priya, 'GET', `/api/jobs/${otherJob}/programs`);
+    expect(list.body.programs[0].latest.estimate?.id).toBe(firstEstimateId);
+    const detail = await callApi<DetailAnswer>(jars.priya, 'GET', `/api/programs/${r.body.programs[0].id}`);
+    expect(detail.body.program.versions[0].estimates.map((e) => e.id)).toEqual([firstEstimateId]);
+  });
+
   it('a version that does not exist answers 404', async () => {
     expect((await callApi(jars.priya, 'GET', `/api/programs/${programId}/versions/4/file`)).status).toBe(404);
     expect((await callApi(jars.priya, 'GET', `/api/programs/${programId}/versions/0/file`)).status).toBe(404);

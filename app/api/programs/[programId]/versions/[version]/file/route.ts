@@ -16,7 +16,7 @@ export const GET = handle(async (request, { params }: Context) => {
   const user = await requireAction('programs:read');
   const raw = await params;
   const programId = parseId(raw.programId, 'program');
-  const version = parseId(raw.version, 'program version');
+  const version = parseId(raw.version, 'program');
   const stored = await getProgramVersionFile(user.shopId, programId, version);
   if (!stored) throw new AppError('not-found:program', 'No such program version.');
   const etag = `"${stored.sha256}"`;
