@@ -3,7 +3,7 @@
 // splitting, and accounting that adds up.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { estimate, limitAlong } from '@/lib/kinematics';
+import { estimate } from '@/lib/kinematics';
 import type { MachineProfile } from '@/lib/validation/machine-profile';
 import { alongS, restToRestS } from './support/closed-forms';
 import { Moves, testProfile } from './support/moves';
@@ -68,7 +68,8 @@ describe('invariants (fast-check)', () => {
           const d = Math.hypot(s.x - px, s.y - py, s.z - pz);
           if (d > 1e-9) {
             const [ux, uy, uz] = [(s.x - px) / d, (s.y - py) / d, (s.z - pz) / d];
-            let v = s.kind === 'rapid' ? limitAlong(ux, uy, uz, p.rapidMmPerMin.x / 60, p.rapidMmPerMin.y / 60, p.rapidMmPerMin.z / 60) : Math.min(s.f / 60, limitAlong(ux, uy, uz, p.maxFeedMmPerMin.x / 60, p.maxFeedMmPerMin.y / 60, p.maxFeedMmPerMin.z / 60));
+            // per-axis limits seen along u (support/closed-forms.ts, not the planner's helper)
+            let v = s.kind === 'rapid' ? alongS([ux, uy, uz], [p.rapidMmPerMin.x / 60, p.rapidMmPerMin.y / 60, p.rapidMmPerMin.z / 60]) : Math.min(s.f / 60, alongS([ux, uy, uz], [p.maxFeedMmPerMin.x / 60, p.maxFeedMmPerMin.y / 60, p.maxFeedMmPerMin.z / 60]));
             if (p.maxBlocksPerS > 0) v = Math.min(v, d * p.maxBlocksPerS);
             bound += d / v;
             // as the planner (lib/kinematics/block-feed.ts, MIN_BLOCK_MM): a move under 1 nm is
