@@ -18,14 +18,14 @@ interface Props {
 
 export function ConfirmAction({ action, hidden, label, question, confirmLabel, variant = 'danger' }: Props) {
   const [state, dispatch, pending] = useActionState(action, IDLE);
-  const [asking, setAsking] = useState(false);
+  // the answer the question was asked after: a newer answer closes the question
+  const [askedAfter, setAskedAfter] = useState<number | null>(null);
+  const asking = askedAfter !== null && askedAfter === (state.at ?? 0);
+  const setAsking = (on: boolean) => setAskedAfter(on ? (state.at ?? 0) : null);
   const questionRef = useRef<HTMLParagraphElement>(null);
   useEffect(() => {
     if (asking) questionRef.current?.focus();
   }, [asking]);
-  useEffect(() => {
-    if (state.status !== 'idle') setAsking(false);
-  }, [state]);
   return (
     <div className="flex flex-col gap-2">
       {asking ? (

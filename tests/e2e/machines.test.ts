@@ -32,6 +32,7 @@ async function shot(page: Page, name: string) {
 }
 
 async function cleanUp() {
+  await dbm.db.delete(s.jobs).where(like(s.jobs.title, 'Test M %'));
   const ours = await dbm.db.select({ id: s.machines.id }).from(s.machines).where(like(s.machines.name, 'Test M Router E2E%'));
   for (const { id } of ours) {
     await dbm.db.delete(s.tools).where(eq(s.tools.machineId, id));
@@ -175,6 +176,38 @@ describe('new machine (programmer)', () => {
     const [row] = await dbm.db.select().from(s.machines).where(eq(s.machines.name, `${NAME} new`));
     // typed as inches, stored as mm (×25.4, rounded to 12 significant digits)
     expect(row).toMatchObject({ travelXMm: 2500, travelYMm: 1250, travelZMm: 150, maxFeedXMmPerMin: 20000, cornerToleranceMm: 0.015, chordToleranceMm: 0.005, hourlyRateMinor: 7000, defaultHoldDown: 'clamps', version: 1 });
+    await page.close();
+  });
+});
+
+describe('remove or archive (programmer)', () => {
+  it('archives a machine a job names, keeps it readable and restorable; deletes one nothing names', async () => {
+    const [machineRow] = await dbm.db.select().from(s.machines).where(eq(s.machines.name, `${NAME} new`));
+    const [customer] = await dbm.db.select().from(s.customers).where(eq(s.customers.shopId, machineRow.shopId)).limit(1);
+    await dbm.db.insert(s.jobs).values({
+      shopId: machineRow.shopId, title: 'Test M job on the new router', customerId: customer.id, machineId: machineRow.id,
+      sheetWidthMm: 1220, sheetLengthMm: 2440, sheetThicknessMm: 12, holdDown: 'clamps', quantity: 1,
+    });
+    const page = await signedInPage('priya@alder-finch.example');
+    const machine = new MachinePage(page, server.baseUrl);
+    await machine.open(machineRow.id);
+    await page.getByRole('button', { name: 'Remove machine' }).click();
+    // the question takes the focus, so a keyboard user hears what will happen
+    expect(await page.evaluate(() => document.activeElement?.textContent)).toMatch(/archived instead/);
+    await page.getByRole('button', { name: 'Yes, remove' }).click();
+    await page.getByText(/^Archived on /).waitFor();
+    expect(await machine.versionLead()).toMatch(/· archived/);
+    expect(await page.getByRole('link', { name: 'Edit profile' }).count()).toBe(0);
+    await shot(page, 'machine-archived');
+    await page.getByRole('button', { name: 'Restore machine' }).click();
+    await page.getByRole('button', { name: 'Yes, restore' }).click();
+    await page.getByRole('link', { name: 'Edit profile' }).waitFor();
+
+    await machine.open(machineId);
+    await page.getByRole('button', { name: 'Remove machine' }).click();
+    await page.getByRole('button', { name: 'Yes, remove' }).click();
+    await page.waitForURL(/\/machines\?removed=1$/);
+    expect(await dbm.db.select().from(s.machines).where(eq(s.machines.id, machineId))).toEqual([]);
     await page.close();
   });
 });

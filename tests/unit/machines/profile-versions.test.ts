@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import path from 'node:path';
+import { changeText } from '@/lib/machines/change-text';
 import { profileChanges, profileDiffers } from '@/lib/machines/profile-diff';
 import { AXES_FIELDS, fieldLabel, fieldSentence, flatToProfileInput, NUMERIC_KEYS, profileToFlat, SCALAR_FIELDS } from '@/lib/machines/profile-fields';
 import { machineProfileSchema, parseMachineProfile, type MachineProfile } from '@/lib/validation/machine-profile';
@@ -59,6 +60,17 @@ describe('profile changes', () => {
     const next = clone(router1);
     next.homeMm.x = -0;
     expect(profileDiffers(router1, next)).toBe(true);
+  });
+});
+
+describe('version history wording', () => {
+  it('names a change with its values in the shop unit (0.02 mm ÷ 25.4 = 0.000787 in)', () => {
+    const next = { ...clone(router1), cornerToleranceMm: 0.03, lookaheadBlocks: 128 };
+    const [corner, lookahead] = profileChanges(router1, next);
+    expect(changeText(corner, 'mm')).toBe('Corner tolerance 0.02 → 0.03 mm');
+    expect(changeText(corner, 'inch')).toBe('Corner tolerance 0.000787 → 0.00118 in');
+    expect(changeText(lookahead, 'inch')).toBe('Look-ahead 64 → 128 blocks');
+    expect(changeText({ kind: 'tool-changed', number: 2, fields: ['diameterMm', 'kind'] }, 'mm')).toBe('Tool 2: diameter, kind changed');
   });
 });
 

@@ -13,6 +13,7 @@ import { Notice } from '@/components/ui/notice';
 import { PageHeader } from '@/components/ui/page-header';
 import { getMachine, listMachineVersions, machineRowToProfile } from '@/db/queries/machines';
 import { getShopSettings } from '@/db/queries/shops';
+import { whoMay } from '@/lib/auth/messages';
 import { guardPage } from '@/lib/auth/page-guard';
 import { canDo } from '@/lib/auth/roles';
 import { formatLength, unitSymbol } from '@/lib/units/length';
@@ -57,7 +58,7 @@ export default async function MachinePage({ params, searchParams }: Props) {
     <>
       <PageHeader
         title={machine.name}
-        lead={`Profile version ${machine.version}${archived ? ' · archived' : ''}. Lengths in ${unitSymbol('length', unit)}.`}
+        lead={`Profile version ${machine.version}${archived ? ' · archived' : ''}. Lengths in ${unit === 'inch' ? 'inches' : 'millimetres'}.`}
         actions={
           editable ? (
             <Link href={`/machines/${machine.id}/edit`} className="inline-flex min-h-target items-center rounded-md border-2 border-spruce bg-spruce px-4 font-bold text-white hover:bg-spruce-dark">
@@ -107,7 +108,7 @@ export default async function MachinePage({ params, searchParams }: Props) {
           <div className="grid items-start gap-6 lg:grid-cols-[3fr_2fr]">
             {machine.tools.length === 0 ? (
               <Notice tone="note" title="No tools yet." role="status">
-                {editable ? 'Add the first one with the form.' : 'Estimates of programs that call a tool still work; the tool list is for the people reading them.'}
+                {editable ? 'Add the first one with the form.' : archived ? 'It was archived without tools.' : `${whoMay('machines:write', true)} can add tools.`}
               </Notice>
             ) : (
               <DataTable
