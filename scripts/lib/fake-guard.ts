@@ -18,8 +18,9 @@ export function hostIsLocal(host: string | undefined, port: number): boolean {
   return LOOPBACK_NAMES.some((name) => host.toLowerCase() === `${name}:${port}`);
 }
 
+/** Origin or Sec-Fetch-Site: a browser sends one of them; Node's fetch sends Sec-Fetch-Mode alone, so that one proves nothing. */
 export function fromBrowser(headers: IncomingHttpHeaders): boolean {
-  return headers.origin !== undefined || headers['sec-fetch-site'] !== undefined || headers['sec-fetch-mode'] !== undefined;
+  return headers.origin !== undefined || headers['sec-fetch-site'] !== undefined;
 }
 
 export interface FakeRequest {

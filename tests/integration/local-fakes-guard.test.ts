@@ -101,10 +101,12 @@ describe('S3 fake (ASVS V14.1)', () => {
 });
 
 describe('mail capture API (ASVS V14.1)', () => {
-  it('lists captured mail for a script on loopback', async () => {
+  it('lists captured mail for a script on loopback, also through Node\'s fetch', async () => {
     const answer = await raw(mailPort, 'GET', '/messages', {});
     expect(answer.status).toBe(200);
     expect(JSON.parse(answer.text)).toEqual([]);
+    // undici sends Sec-Fetch-Mode: cors of its own; the tests and scripts use it
+    expect((await fetch(`http://127.0.0.1:${mailPort}/messages`)).status).toBe(200);
   });
 
   it('refuses a rebound Host and a browser Origin', async () => {
