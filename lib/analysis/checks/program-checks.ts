@@ -46,7 +46,7 @@ const M_MIN_X = MoveSlot.minX, M_MIN_Y = MoveSlot.minY, M_MAX_X = MoveSlot.maxX,
 const M_COARSE_MIN_X = MoveSlot.coarseMinX, M_COARSE_MIN_Y = MoveSlot.coarseMinY, M_COARSE_MAX_X = MoveSlot.coarseMaxX, M_COARSE_MAX_Y = MoveSlot.coarseMaxY;
 const P_X = PlungeSlot.x, P_Y = PlungeSlot.y, P_DEPTH = PlungeSlot.depthMm, P_FEED = PlungeSlot.feedMmPerMin;
 
-// Slots of ProgramChecks.st, the checks' running numbers, and of ProgramChecks.k, the limits
+// Slots of ProgramChecks.running, the checks' running numbers, and of ProgramChecks.limits, the limits
 // worked out once. Kept in typed arrays rather than fields: the pass stores into them on most
 // moves, and a double in an array is written in place, never boxed.
 const S_MIN_X = 0, S_MAX_X = 1, S_MIN_Y = 2, S_MAX_Y = 3, S_MIN_Z = 4, S_MAX_Z = 5;
@@ -68,30 +68,30 @@ export class ProgramChecks {
   // the tool rarely changes from one move to the next: keep its diameter (and the sheet limits
   // that depend on it) rather than look it up per move
   private lastTool = -1;
-  private readonly st = new Float64Array(9);
-  private readonly k = new Float64Array(17);
+  private readonly running = new Float64Array(9);
+  private readonly limits = new Float64Array(17);
 
   constructor(private readonly c: CheckContext, private readonly sink: FindingSink) {
-    const st = this.st, k = this.k;
-    st[S_MIN_X] = Infinity; st[S_MAX_X] = -Infinity;
-    st[S_MIN_Y] = Infinity; st[S_MAX_Y] = -Infinity;
-    st[S_MIN_Z] = Infinity; st[S_MAX_Z] = -Infinity;
-    st[S_FEED_RUN] = -1;
+    const run = this.running, lim = this.limits;
+    run[S_MIN_X] = Infinity; run[S_MAX_X] = -Infinity;
+    run[S_MIN_Y] = Infinity; run[S_MAX_Y] = -Infinity;
+    run[S_MIN_Z] = Infinity; run[S_MAX_Z] = -Infinity;
+    run[S_FEED_RUN] = -1;
     const tol = c.toleranceMm;
-    k[K_TOL] = tol;
-    if (c.topZ !== null) k[K_STOCK] = c.topZ - tol;
+    lim[K_TOL] = tol;
+    if (c.topZ !== null) lim[K_STOCK] = c.topZ - tol;
     if (c.sheet) {
-      k[K_SHEET_LO] = -tol;
-      k[K_SHEET_W] = c.sheet.widthMm + tol;
-      k[K_SHEET_L] = c.sheet.lengthMm + tol;
+      lim[K_SHEET_LO] = -tol;
+      lim[K_SHEET_W] = c.sheet.widthMm + tol;
+      lim[K_SHEET_L] = c.sheet.lengthMm + tol;
     }
-    if (c.bottomZ !== null) k[K_SPOIL] = c.bottomZ - c.spoilboardAllowanceMm - tol;
+    if (c.bottomZ !== null) lim[K_SPOIL] = c.bottomZ - c.spoilboardAllowanceMm - tol;
     const mach = c.machine;
     if (mach) {
-      k[K_FEED_X] = mach.maxFeedMmPerMin.x; k[K_FEED_Y] = mach.maxFeedMmPerMin.y; k[K_FEED_Z] = mach.maxFeedMmPerMin.z;
-      k[K_FEED_LOW] = Math.min(mach.maxFeedMmPerMin.x, mach.maxFeedMmPerMin.y, mach.maxFeedMmPerMin.z);
-      k[K_ARC_FEED] = Math.min(mach.maxFeedMmPerMin.x, mach.maxFeedMmPerMin.y);
-      k[K_SPAN_X] = mach.travelMm.x + tol; k[K_SPAN_Y] = mach.travelMm.y + tol; k[K_SPAN_Z] = mach.travelMm.z + tol;
+      lim[K_FEED_X] = mach.maxFeedMmPerMin.x; lim[K_FEED_Y] = mach.maxFeedMmPerMin.y; lim[K_FEED_Z] = mach.maxFeedMmPerMin.z;
+      lim[K_FEED_LOW] = Math.min(mach.maxFeedMmPerMin.x, mach.maxFeedMmPerMin.y, mach.maxFeedMmPerMin.z);
+      lim[K_ARC_FEED] = Math.min(mach.maxFeedMmPerMin.x, mach.maxFeedMmPerMin.y);
+      lim[K_SPAN_X] = mach.travelMm.x + tol; lim[K_SPAN_Y] = mach.travelMm.y + tol; lim[K_SPAN_Z] = mach.travelMm.z + tol;
     }
   }
 
@@ -100,16 +100,16 @@ export class ProgramChecks {
     if (tool !== this.lastTool) {
       this.lastTool = tool;
       const d = this.c.toolDiameter(tool);
-      this.st[S_DIAMETER] = d;
+      this.running[S_DIAMETER] = d;
       const sheet = this.c.sheet;
       if (sheet) {
         const m = d / 2 + this.c.toleranceMm;
-        this.k[K_SIDE_LO] = -m;
-        this.k[K_SIDE_W] = sheet.widthMm + m;
-        this.k[K_SIDE_L] = sheet.lengthMm + m;
+        this.limits[K_SIDE_LO] = -m;
+        this.limits[K_SIDE_W] = sheet.widthMm + m;
+        this.limits[K_SIDE_L] = sheet.lengthMm + m;
       }
     }
-    return this.st[S_DIAMETER];
+    return this.running[S_DIAMETER];
   }
 
   /** the move being checked, in the slots of MoveSlot (written by the caller before motion()) */
@@ -124,157 +124,177 @@ export class ProgramChecks {
    * same answer, and the caller need not work out the exact one.
    */
   coarseBoxSuffices(tool: number): boolean {
-    const m = this.m, k = this.k, st = this.st, c = this.c;
-    const tol = k[K_TOL];
+    const m = this.m, lim = this.limits, run = this.running, c = this.c;
+    const tol = lim[K_TOL];
     if (!(m[M_MAX_X] - m[M_MIN_X] > tol || m[M_MAX_Y] - m[M_MIN_Y] > tol)) return false;
     const x0 = m[M_COARSE_MIN_X], y0 = m[M_COARSE_MIN_Y], x1 = m[M_COARSE_MAX_X], y1 = m[M_COARSE_MAX_Y];
     if (c.sheet !== null) {
-      if (!(x0 >= k[K_SHEET_LO] && y0 >= k[K_SHEET_LO] && x1 <= k[K_SHEET_W] && y1 <= k[K_SHEET_L])) return false;
+      if (!(x0 >= lim[K_SHEET_LO] && y0 >= lim[K_SHEET_LO] && x1 <= lim[K_SHEET_W] && y1 <= lim[K_SHEET_L])) return false;
       if (tool !== this.lastTool) this.diameterOf(tool);
-      if (!(x0 >= k[K_SIDE_LO] && y0 >= k[K_SIDE_LO] && x1 <= k[K_SIDE_W] && y1 <= k[K_SIDE_L])) return false;
+      if (!(x0 >= lim[K_SIDE_LO] && y0 >= lim[K_SIDE_LO] && x1 <= lim[K_SIDE_W] && y1 <= lim[K_SIDE_L])) return false;
     }
     const mach = c.machine;
     if (mach) {
       if (mach.workOffset) return false;
-      if (!(x0 >= st[S_MIN_X] && y0 >= st[S_MIN_Y] && x1 <= st[S_MAX_X] && y1 <= st[S_MAX_Y])) return false;
+      if (!(x0 >= run[S_MIN_X] && y0 >= run[S_MIN_Y] && x1 <= run[S_MAX_X] && y1 <= run[S_MAX_Y])) return false;
     }
     return true;
   }
 
   /**
    * one motion move (its numbers in `m`, MoveSlot): kind 0 rapid, 1 feed, 2 arc; drilling is true for the
-   * legs of a canned cycle, which plunge straight by design
+   * legs of a canned cycle, which plunge straight by design. Each check is a method of its own;
+   * they take no double arguments (each reads the move from `m`), so none is boxed whether V8
+   * inlines the method or not.
    */
   motion(line: number, kind: number, spindleOn: boolean, tool: number, drilling: boolean): void {
-    const m = this.m, k = this.k, st = this.st;
-    const z0 = m[M_Z0], z1 = m[M_Z1];
-    const bx0 = m[M_MIN_X], by0 = m[M_MIN_Y], bx1 = m[M_MAX_X], by1 = m[M_MAX_Y], zLo = m[M_Z_LO];
-    const c = this.c;
-    const tol = k[K_TOL];
-    const top = c.topZ;
-    const sheet = c.sheet;
-    const overSheet = sheet === null || (bx1 >= k[K_SHEET_LO] && bx0 <= k[K_SHEET_W] && by1 >= k[K_SHEET_LO] && by0 <= k[K_SHEET_L]);
-    const stock = k[K_STOCK];
-    const inStockZ = top !== null && zLo < stock;
+    const m = this.m, lim = this.limits, c = this.c;
+    const bx0 = m[M_MIN_X], by0 = m[M_MIN_Y], bx1 = m[M_MAX_X], by1 = m[M_MAX_Y];
+    const tol = lim[K_TOL];
+    const overSheet = c.sheet === null || (bx1 >= lim[K_SHEET_LO] && bx0 <= lim[K_SHEET_W] && by1 >= lim[K_SHEET_LO] && by0 <= lim[K_SHEET_L]);
+    const inStockZ = c.topZ !== null && m[M_Z_LO] < lim[K_STOCK];
     const movesXY = bx1 - bx0 > tol || by1 - by0 > tol;
+    if (c.topZ !== null) {
+      this.inStock(line, kind, inStockZ && overSheet, movesXY, spindleOn);
+      this.entry(line, kind, tool, movesXY, drilling);
+    }
+    if (c.sheet !== null && kind !== 0) this.beyondSheet(line, tool, inStockZ);
+    if (c.bottomZ !== null) this.spoilboard(line);
+    if (c.machine) {
+      if (c.machine.workOffset) this.travelWithOffset(line);
+      else this.travelSpan(line);
+      this.feed(line, kind);
+    }
+  }
 
-    if (top !== null) {
-      // rapid in stock
-      const bad = kind === 0 && movesXY && inStockZ && overSheet;
-      if (bad && !this.rapidRun) {
-        rapidInStock(this.sink, line, zLo, top);
-      }
-      this.rapidRun = bad;
-      // spindle off while feeding in stock
-      const dry = kind !== 0 && inStockZ && overSheet && !spindleOn;
-      if (dry && !this.spindleRun) {
-        spindleOff(this.sink, line, zLo, top);
-      }
-      this.spindleRun = dry;
-      // entering the stock: plunge points and straight plunges
-      if (z0 >= stock && z1 < stock) {
-        const pp = this.plungePoints, io = pp.io;
-        io[P_X] = m[M_X1]; io[P_Y] = m[M_Y1]; io[P_DEPTH] = top - z1; io[P_FEED] = kind === 0 ? 0 : m[M_FEED];
-        pp.push(line, tool, movesXY, kind === 0);
-      }
-      if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < stock) {
-        st[S_PLUNGE] += Math.min(z0, top) - z1;
-        const d = this.diameterOf(tool);
-        if (!this.plungeReported && d > 0 && st[S_PLUNGE] > d + tol) {
-          this.plungeReported = true;
-          straightPlunge(this.sink, line, st[S_PLUNGE], d, tool);
-        }
-      } else if (kind !== 1 || movesXY || z1 > z0 + EPS) {
-        st[S_PLUNGE] = 0;
-        this.plungeReported = false;
-      }
-    }
+  /** a rapid in XY through the stock, and a feed into it with the spindle stopped (stock top known) */
+  private inStock(line: number, kind: number, inStockOverSheet: boolean, movesXY: boolean, spindleOn: boolean): void {
+    const bad = kind === 0 && movesXY && inStockOverSheet;
+    if (bad && !this.rapidRun) rapidInStock(this.sink, line, this.m[M_Z_LO], this.c.topZ!);
+    this.rapidRun = bad;
+    const dry = kind !== 0 && inStockOverSheet && !spindleOn;
+    if (dry && !this.spindleRun) spindleOff(this.sink, line, this.m[M_Z_LO], this.c.topZ!);
+    this.spindleRun = dry;
+  }
 
-    // cutting outside the sheet
-    if (sheet !== null && kind !== 0) {
-      if (tool !== this.lastTool) this.diameterOf(tool);
-      const outside = inStockZ && (bx0 < k[K_SIDE_LO] || by0 < k[K_SIDE_LO] || bx1 > k[K_SIDE_W] || by1 > k[K_SIDE_L]);
-      if (outside && !this.sheetRun) {
-        outsideSheet(this.sink, line, bx0 < k[K_SIDE_LO] ? bx0 : bx1, by0 < k[K_SIDE_LO] ? by0 : by1, sheet);
-      }
-      this.sheetRun = outside;
+  /** entering the stock: the plunge points, and straight plunges deeper than the tool is wide */
+  private entry(line: number, kind: number, tool: number, movesXY: boolean, drilling: boolean): void {
+    const m = this.m, run = this.running;
+    const z0 = m[M_Z0], z1 = m[M_Z1];
+    const top = this.c.topZ!, stock = this.limits[K_STOCK];
+    if (z0 >= stock && z1 < stock) {
+      const pp = this.plungePoints, io = pp.io;
+      io[P_X] = m[M_X1]; io[P_Y] = m[M_Y1]; io[P_DEPTH] = top - z1; io[P_FEED] = kind === 0 ? 0 : m[M_FEED];
+      pp.push(line, tool, movesXY, kind === 0);
     }
-    // too deep into the spoilboard
-    const bottomZ = c.bottomZ;
-    if (bottomZ !== null) {
-      const deep = zLo < k[K_SPOIL];
-      if (deep && !this.spoilRun) {
-        spoilboardDepth(this.sink, line, zLo, bottomZ, c.spoilboardAllowanceMm);
+    if (kind === 1 && !drilling && !movesXY && z1 < z0 - EPS && z1 < stock) {
+      run[S_PLUNGE] += Math.min(z0, top) - z1;
+      const d = this.diameterOf(tool);
+      if (!this.plungeReported && d > 0 && run[S_PLUNGE] > d + this.limits[K_TOL]) {
+        this.plungeReported = true;
+        straightPlunge(this.sink, line, run[S_PLUNGE], d, tool);
       }
-      this.spoilRun = deep;
+    } else if (kind !== 1 || movesXY || z1 > z0 + EPS) {
+      run[S_PLUNGE] = 0;
+      this.plungeReported = false;
     }
-    // travel and feed limits
-    const mach = c.machine;
-    if (mach) {
-      const off = mach.workOffset;
-      if (off) {
-        const out = bx0 + off.x < -tol || bx1 + off.x > mach.travelMm.x + tol || by0 + off.y < -tol || by1 + off.y > mach.travelMm.y + tol ||
-          zLo + off.z < -mach.travelMm.z - tol || Math.max(z0, z1) + off.z > tol;
-        if (out && !this.travelRun) {
-          outsideTravel(this.sink, line, mach);
-        }
-        this.travelRun = out;
-      } else {
-        // the span only grows: it can first exceed the travel only on a move that widens it
-        let grew = false;
-        if (bx0 < st[S_MIN_X]) { st[S_MIN_X] = bx0; grew = true; }
-        if (bx1 > st[S_MAX_X]) { st[S_MAX_X] = bx1; grew = true; }
-        if (by0 < st[S_MIN_Y]) { st[S_MIN_Y] = by0; grew = true; }
-        if (by1 > st[S_MAX_Y]) { st[S_MAX_Y] = by1; grew = true; }
-        if (zLo < st[S_MIN_Z]) { st[S_MIN_Z] = zLo; grew = true; }
-        const zHi = z0 > z1 ? z0 : z1;
-        if (zHi > st[S_MAX_Z]) { st[S_MAX_Z] = zHi; grew = true; }
-        if (grew && this.travelLine === 0 && (st[S_MAX_X] - st[S_MIN_X] > k[K_SPAN_X] || st[S_MAX_Y] - st[S_MIN_Y] > k[K_SPAN_Y] || st[S_MAX_Z] - st[S_MIN_Z] > k[K_SPAN_Z])) {
-          this.travelLine = line;
-        }
-      }
-      const feedMmPerMin = m[M_FEED];
-      if (kind !== 0 && feedMmPerMin > 0) {
-        if (feedMmPerMin <= k[K_FEED_LOW] || (feedMmPerMin <= k[K_ARC_FEED] && (kind === 2 || Math.abs(z1 - z0) <= EPS))) {
-          // at most the lowest axis limit, or the lower XY limit on an arc or a level move: no
-          // direction of the move can limit it (each axis' limit along the move, maxFeedMmPerMin·len/|d|
-          // with |d| ≤ len, is at least that axis' own; a level move's Z part counts as none)
-          st[S_FEED_RUN] = -1;
-        } else {
-          this.feedLimit(line, kind, feedMmPerMin);
-        }
-      }
+  }
+
+  /** cutting in the stock beyond the sheet's edge by more than the tool radius (a cutting move, sheet known) */
+  private beyondSheet(line: number, tool: number, inStockZ: boolean): void {
+    if (tool !== this.lastTool) this.diameterOf(tool);
+    const m = this.m, lim = this.limits;
+    const bx0 = m[M_MIN_X], by0 = m[M_MIN_Y], bx1 = m[M_MAX_X], by1 = m[M_MAX_Y];
+    const outside = inStockZ && (bx0 < lim[K_SIDE_LO] || by0 < lim[K_SIDE_LO] || bx1 > lim[K_SIDE_W] || by1 > lim[K_SIDE_L]);
+    if (outside && !this.sheetRun) {
+      outsideSheet(this.sink, line, bx0 < lim[K_SIDE_LO] ? bx0 : bx1, by0 < lim[K_SIDE_LO] ? by0 : by1, this.c.sheet!);
+    }
+    this.sheetRun = outside;
+  }
+
+  /** deeper below the sheet bottom than the spoilboard allowance (sheet bottom known) */
+  private spoilboard(line: number): void {
+    const zLo = this.m[M_Z_LO];
+    const deep = zLo < this.limits[K_SPOIL];
+    if (deep && !this.spoilRun) spoilboardDepth(this.sink, line, zLo, this.c.bottomZ!, this.c.spoilboardAllowanceMm);
+    this.spoilRun = deep;
+  }
+
+  /** outside the machine's travel, with the work offset known: the move itself in machine coordinates */
+  private travelWithOffset(line: number): void {
+    const m = this.m, mach = this.c.machine!, off = mach.workOffset!, tol = this.limits[K_TOL];
+    const z0 = m[M_Z0], z1 = m[M_Z1];
+    const out = m[M_MIN_X] + off.x < -tol || m[M_MAX_X] + off.x > mach.travelMm.x + tol || m[M_MIN_Y] + off.y < -tol || m[M_MAX_Y] + off.y > mach.travelMm.y + tol ||
+      m[M_Z_LO] + off.z < -mach.travelMm.z - tol || Math.max(z0, z1) + off.z > tol;
+    if (out && !this.travelRun) outsideTravel(this.sink, line, mach);
+    this.travelRun = out;
+  }
+
+  /**
+   * without the work offset: the span of the program so far against the travel (reported by
+   * finish() at the first move that made it too wide). The span only grows: it can first exceed
+   * the travel only on a move that widens it.
+   */
+  private travelSpan(line: number): void {
+    const m = this.m, lim = this.limits, run = this.running;
+    const bx0 = m[M_MIN_X], by0 = m[M_MIN_Y], bx1 = m[M_MAX_X], by1 = m[M_MAX_Y], zLo = m[M_Z_LO];
+    const z0 = m[M_Z0], z1 = m[M_Z1];
+    let grew = false;
+    if (bx0 < run[S_MIN_X]) { run[S_MIN_X] = bx0; grew = true; }
+    if (bx1 > run[S_MAX_X]) { run[S_MAX_X] = bx1; grew = true; }
+    if (by0 < run[S_MIN_Y]) { run[S_MIN_Y] = by0; grew = true; }
+    if (by1 > run[S_MAX_Y]) { run[S_MAX_Y] = by1; grew = true; }
+    if (zLo < run[S_MIN_Z]) { run[S_MIN_Z] = zLo; grew = true; }
+    const zHi = z0 > z1 ? z0 : z1;
+    if (zHi > run[S_MAX_Z]) { run[S_MAX_Z] = zHi; grew = true; }
+    if (grew && this.travelLine === 0 && (run[S_MAX_X] - run[S_MIN_X] > lim[K_SPAN_X] || run[S_MAX_Y] - run[S_MIN_Y] > lim[K_SPAN_Y] || run[S_MAX_Z] - run[S_MIN_Z] > lim[K_SPAN_Z])) {
+      this.travelLine = line;
+    }
+  }
+
+  /** a cutting feed above what the machine's axis limits allow along the move (machine known) */
+  private feed(line: number, kind: number): void {
+    const m = this.m, lim = this.limits;
+    const feedMmPerMin = m[M_FEED];
+    if (kind === 0 || !(feedMmPerMin > 0)) return;
+    if (feedMmPerMin <= lim[K_FEED_LOW] || (feedMmPerMin <= lim[K_ARC_FEED] && (kind === 2 || Math.abs(m[M_Z1] - m[M_Z0]) <= EPS))) {
+      // at most the lowest axis limit, or the lower XY limit on an arc or a level move: no
+      // direction of the move can limit it (each axis' limit along the move, maxFeedMmPerMin·len/|d|
+      // with |d| ≤ len, is at least that axis' own; a level move's Z part counts as none)
+      this.running[S_FEED_RUN] = -1;
+    } else {
+      this.feedLimit(line, kind, feedMmPerMin);
     }
   }
 
   /** the feed check of motion() past its fast path: the limit along the move in m */
   private feedLimit(line: number, kind: number, feedMmPerMin: number): void {
-    const m = this.m, k = this.k;
+    const m = this.m, lim = this.limits;
     let limit: number;
     if (kind === 1) {
       const dx = Math.abs(m[M_X1] - m[M_X0]), dy = Math.abs(m[M_Y1] - m[M_Y0]), dz = Math.abs(m[M_Z1] - m[M_Z0]);
       const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
       limit = Infinity;
       if (len > EPS) {
-        if (dx > EPS) limit = Math.min(limit, (k[K_FEED_X] * len) / dx);
-        if (dy > EPS) limit = Math.min(limit, (k[K_FEED_Y] * len) / dy);
-        if (dz > EPS) limit = Math.min(limit, (k[K_FEED_Z] * len) / dz);
+        if (dx > EPS) limit = Math.min(limit, (lim[K_FEED_X] * len) / dx);
+        if (dy > EPS) limit = Math.min(limit, (lim[K_FEED_Y] * len) / dy);
+        if (dz > EPS) limit = Math.min(limit, (lim[K_FEED_Z] * len) / dz);
       }
     } else {
-      limit = k[K_ARC_FEED];
+      limit = lim[K_ARC_FEED];
     }
     const clamped = feedMmPerMin > limit * (1 + 1e-6);
-    if (clamped && this.st[S_FEED_RUN] !== feedMmPerMin) {
+    if (clamped && this.running[S_FEED_RUN] !== feedMmPerMin) {
       feedClamped(this.sink, line, feedMmPerMin, limit);
     }
-    this.st[S_FEED_RUN] = clamped ? feedMmPerMin : -1;
+    this.running[S_FEED_RUN] = clamped ? feedMmPerMin : -1;
   }
 
   finish(): void {
     const mach = this.c.machine;
-    const st = this.st;
+    const run = this.running;
     if (mach && !mach.workOffset && this.travelLine > 0) {
-      const spanX = st[S_MAX_X] - st[S_MIN_X], spanY = st[S_MAX_Y] - st[S_MIN_Y], spanZ = st[S_MAX_Z] - st[S_MIN_Z];
+      const spanX = run[S_MAX_X] - run[S_MIN_X], spanY = run[S_MAX_Y] - run[S_MIN_Y], spanZ = run[S_MAX_Z] - run[S_MIN_Z];
       this.sink.add('outside-travel', 'error', this.travelLine,
         () => `The program spans ${fmt(spanX, 0)} × ${fmt(spanY, 0)} × ${fmt(spanZ, 0)} mm, more than the machine's travel of ${fmt(mach.travelMm.x, 0)} × ${fmt(mach.travelMm.y, 0)} × ${fmt(mach.travelMm.z, 0)} mm (this move is the first to exceed it), so it cannot run wherever the work offset is set: the machine may stop on a limit or hit its frame.`);
     }

@@ -20,12 +20,10 @@ export class BandCollector {
   private readonly pendingLen = new Float64Array(1);
   /** the chord for segment(), in the slots of PieceSlot (numbers through an array, not boxed arguments) */
   readonly io = new Float64Array(PieceSlot.size);
-  /** the flat arc for arc(), in the slots of ArcSlot: the graph's own arcIo, as the band passes arcs on unchanged */
-  readonly arcIo: Float64Array;
-  /** the piece of the chord segment() split off, in the slots of PieceSlot */
+  /** the flat arc for arc(), in the slots of ArcSlot (the graph reads it from here) */
+  readonly arcIo = new Float64Array(ArcSlot.size);
+  /** the piece of the chord that segment() split off, in the slots of PieceSlot (the graph reads it from here) */
   private readonly cut = new Float64Array(PieceSlot.size);
-  /** the graph's input for one piece: piece() and flush() copy into it just before adding */
-  private readonly graphPiece: Float64Array;
 
   constructor(
     private readonly graph: CutGraph,
@@ -34,8 +32,6 @@ export class BandCollector {
     private readonly stockTopZ: number,
     private readonly tabMaxLengthMm: number,
   ) {
-    this.arcIo = graph.arcIo;
-    this.graphPiece = graph.pieceIo;
   }
 
   /** a through cut was made and the tool has not left the stock since: rises may be tabs */
@@ -97,7 +93,7 @@ export class BandCollector {
       this.flush();
       this.armed = true;
     }
-    this.graph.arc(move, tool);
+    this.graph.arc(this.arcIo, move, tool);
   }
 
   /** the piece in `cut`, wholly on one side of the through and band levels */
@@ -111,9 +107,7 @@ export class BandCollector {
         else this.pendingLen[0] = 0;
         this.armed = true;
       }
-      const g = this.graphPiece;
-      g[X0] = p[X0]; g[Y0] = p[Y0]; g[Z0] = p[Z0]; g[X1] = p[X1]; g[Y1] = p[Y1]; g[Z1] = p[Z1];
-      this.graph.piece(move, tool);
+      this.graph.piece(p, 0, move, tool);
       return;
     }
     if (!this.armed) return;
@@ -137,11 +131,7 @@ export class BandCollector {
   /** the held-back rises into the graph, in the order they were cut */
   private flush(): void {
     const p = this.pending, n = this.pendingCount;
-    const g = this.graphPiece;
-    for (let i = 0; i < n; i += RISE) {
-      g[X0] = p[i + X0]; g[Y0] = p[i + Y0]; g[Z0] = p[i + Z0]; g[X1] = p[i + X1]; g[Y1] = p[i + Y1]; g[Z1] = p[i + Z1];
-      this.graph.piece(p[i + R_MOVE] | 0, p[i + R_TOOL] | 0);
-    }
+    for (let i = 0; i < n; i += RISE) this.graph.piece(p, i, p[i + R_MOVE] | 0, p[i + R_TOOL] | 0);
     this.pendingCount = 0;
     this.pendingLen[0] = 0;
   }

@@ -28,11 +28,11 @@ const DENSE_CELL_SPANS = 32;
 
 /** edge b runs along arc edge a (both its ends within the arc's chord error of the circle) */
 function alongArc(g: CutGraph, a: number, b: number, tol: number): boolean {
-  const k = g.eArc[a], arcs = g.arcs;
-  const r = arcs.r[k];
+  const arc = g.eArc[a], arcs = g.arcs;
+  const r = arcs.r[arc];
   if (r <= 0) return false;
-  const band = r * (1 - Math.cos(arcs.sweep[k] / 2)) + tol;
-  const cx = arcs.cx[k], cy = arcs.cy[k];
+  const band = r * (1 - Math.cos(arcs.sweep[arc] / 2)) + tol;
+  const cx = arcs.cx[arc], cy = arcs.cy[arc];
   const x0 = g.vx[g.eu[b]] - cx, y0 = g.vy[g.eu[b]] - cy, x1 = g.vx[g.ev[b]] - cx, y1 = g.vy[g.ev[b]] - cy;
   const d0 = Math.sqrt(x0 * x0 + y0 * y0);
   const d1 = Math.sqrt(x1 * x1 + y1 * y1);

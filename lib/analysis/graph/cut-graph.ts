@@ -17,13 +17,13 @@ import { grownF64, grownI32 } from '../typed-arrays';
 const KEY_OFFSET = 2 ** 24;
 const KEY_LIMIT = KEY_OFFSET - 1;
 /**
- * The slots of CutGraph.pieceIo, the straight piece for piece(): its start and end, mm. The
- * numbers of a piece or an arc go through these arrays rather than as arguments, which a call
- * that is not inlined boxes one by one.
+ * The layout of a straight piece for CutGraph.piece(): its start and end, mm. The caller keeps
+ * the numbers of a piece or an arc in a buffer of its own and the graph reads them from there,
+ * rather than as arguments, which a call that is not inlined boxes one by one.
  */
 export const PieceSlot = { x0: 0, y0: 1, z0: 2, x1: 3, y1: 4, z1: 5, size: 6 } as const;
 /**
- * The slots of CutGraph.arcIo, the flat XY arc for arc(): from (x0, y0) to (x1, y1) at height
+ * The layout of a flat XY arc for CutGraph.arc(): from (x0, y0) to (x1, y1) at height
  * z, mm, about the centre (cx, cy) with radius r, mm, from the start angle a0 through the signed
  * sweep, rad (positive counter-clockwise); it ends exactly at (x1, y1).
  */
@@ -131,11 +131,6 @@ export class CutGraph {
   /** scratch for a point of a sub-arc */
   private readonly pt = new Float64Array(2);
 
-  /** the piece for piece(), in the slots of PieceSlot */
-  readonly pieceIo = new Float64Array(PieceSlot.size);
-  /** the arc for arc(), in the slots of ArcSlot */
-  readonly arcIo = new Float64Array(ArcSlot.size);
-
   /** the vertex at the point (io[at], io[at + 1]) (x then y), snapped to the chain tolerance */
   private vertex(io: Float64Array, at: number): number {
     const x = io[at], y = io[at + 1];
@@ -159,13 +154,15 @@ export class CutGraph {
     return id;
   }
 
-  /** the straight piece in pieceIo, lying wholly on one side of the through and band levels */
-  piece(move: number, tool: number): void {
-    const p = this.pieceIo;
-    const a = this.vertex(p, P_X0);
-    const b = this.vertex(p, P_X1);
+  /**
+   * the straight piece at p[at …] (PieceSlot layout), lying wholly on one side of the through
+   * and band levels, cut by `move` with `tool`
+   */
+  piece(p: Float64Array, at: number, move: number, tool: number): void {
+    const a = this.vertex(p, at + P_X0);
+    const b = this.vertex(p, at + P_X1);
     if (a === b) return;
-    const z0 = p[P_Z0], z1 = p[P_Z1];
+    const z0 = p[at + P_Z0], z1 = p[at + P_Z1];
     const u = a < b ? a : b;
     const v = a < b ? b : a;
     const zr = this.zr;
@@ -180,9 +177,8 @@ export class CutGraph {
     this.record(e, move, through, tool);
   }
 
-  /** the flat XY arc in arcIo, added as sub-arcs of at most SUB_ARC_RAD (45°) */
-  arc(move: number, tool: number): void {
-    const io = this.arcIo;
+  /** the flat XY arc in io (ArcSlot layout), added as sub-arcs of at most SUB_ARC_RAD (45°) */
+  arc(io: Float64Array, move: number, tool: number): void {
     const z = io[A_Z], cx = io[A_CX], cy = io[A_CY], r = io[A_R], a0 = io[A_A0], sweep = io[A_SWEEP];
     const n = Math.max(1, Math.ceil(Math.abs(sweep) / SUB_ARC_RAD - 1e-9));
     const through = z <= this.throughZ;
@@ -379,8 +375,8 @@ export class CutGraph {
   }
 
   edgeLengthMm(e: number): number {
-    const k = this.eArc[e];
-    if (k > 0) return this.arcs.r[k] * Math.abs(this.arcs.sweep[k]);
+    const arc = this.eArc[e];
+    if (arc > 0) return this.arcs.r[arc] * Math.abs(this.arcs.sweep[arc]);
     const u = this.eu[e], v = this.ev[e];
     return len2(this.vx[v] - this.vx[u], this.vy[v] - this.vy[u]);
   }

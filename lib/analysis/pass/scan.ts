@@ -54,8 +54,8 @@ function arcExtent(io: Float64Array): void {
   let minY = Math.min(cy + r * Math.sin(a0), cy + r * Math.sin(a1));
   let maxY = Math.max(cy + r * Math.sin(a0), cy + r * Math.sin(a1));
   const lo = Math.min(a0, a1), hi = Math.max(a0, a1);
-  for (let k = Math.ceil(lo / (Math.PI / 2)); k * (Math.PI / 2) <= hi; k++) {
-    const q = ((k % 4) + 4) % 4;
+  for (let quarter = Math.ceil(lo / (Math.PI / 2)); quarter * (Math.PI / 2) <= hi; quarter++) {
+    const q = ((quarter % 4) + 4) % 4;
     if (q === 0) maxX = cx + r;
     else if (q === 1) maxY = cy + r;
     else if (q === 2) minX = cx - r;
@@ -161,10 +161,10 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
   const throughZ = levels.throughZ ?? -Infinity;
 
   for (let i = 0; i < n; i++) {
-    const k = kind[i];
+    const moveKind = kind[i];
     const x1 = x[i], y1 = y[i], z1 = z[i];
-    if (k > ARC) {
-      if (band && k !== DWELL) band.breakRun();
+    if (moveKind > ARC) {
+      if (band && moveKind !== DWELL) band.breakRun();
       prev[0] = x1; prev[1] = y1; prev[2] = z1;
       continue;
     }
@@ -175,7 +175,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
     let zLo = pz < z1 ? pz : z1;
     let bx0 = px < x1 ? px : x1, bx1 = px < x1 ? x1 : px;
     let by0 = py < y1 ? py : y1, by1 = py < y1 ? y1 : py;
-    if (k === RAPID) {
+    if (moveKind === RAPID) {
       if (band) band.breakRun();
     } else {
       if (t !== lastTool) {
@@ -187,7 +187,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
         if (!firstThroughByTool.has(t)) firstThroughByTool.set(t, i);
         lastThroughTool = t;
       }
-      if (k === FEED) {
+      if (moveKind === FEED) {
         // (a feed above the band with no tab rise pending is nothing to the band: skip the call)
         if (band && (zLo <= bandTop || band.isArmed)) {
           seg[S_X0] = px; seg[S_Y0] = py; seg[S_Z0] = pz; seg[S_X1] = x1; seg[S_Y1] = y1; seg[S_Z1] = z1;
@@ -227,7 +227,7 @@ export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramCh
       }
     }
     m[M_MIN_X] = bx0; m[M_MIN_Y] = by0; m[M_MAX_X] = bx1; m[M_MAX_Y] = by1; m[M_Z_LO] = zLo; m[M_FEED] = feed[i];
-    checks.motion(line[i], k, (fl & SPINDLE_ON) !== 0, t, (fl & CANNED) !== 0);
+    checks.motion(line[i], moveKind, (fl & SPINDLE_ON) !== 0, t, (fl & CANNED) !== 0);
     prev[0] = x1; prev[1] = y1; prev[2] = z1;
   }
   checks.finish();

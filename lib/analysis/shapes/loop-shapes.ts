@@ -82,13 +82,13 @@ export class LoopShapes {
       key[o] = dx;
       key[o + 1] = dy;
       let r = 0;
-      const k = eArc[e];
-      if (aR[k] > 0) {
-        r = Math.round(aR[k] * GRID);
-        const sw = Math.round(aSweep[k] * ANGLE_UNITS);
+      const arc = eArc[e];
+      if (aR[arc] > 0) {
+        r = Math.round(aR[arc] * GRID);
+        const sw = Math.round(aSweep[arc] * ANGLE_UNITS);
         key[o + 3] = eu[e] === v ? sw : -sw;
-        key[o + 4] = Math.round(aCx[k] * GRID) - ox;
-        key[o + 5] = Math.round(aCy[k] * GRID) - oy;
+        key[o + 4] = Math.round(aCx[arc] * GRID) - ox;
+        key[o + 5] = Math.round(aCy[arc] * GRID) - oy;
       } else {
         key[o + 3] = 0;
         key[o + 4] = 0;
@@ -117,11 +117,11 @@ function drawShape(g: CutGraph, loop: GraphLoop, s: number, ox: number, oy: numb
   const chords = new Int32Array(n);
   let total = n;
   for (let i = 0; i < n; i++) {
-    const k = g.eArc[edges[first + i]];
-    const r = g.arcs.r[k];
+    const arc = g.eArc[edges[first + i]];
+    const r = g.arcs.r[arc];
     if (r <= 0) continue;
     const step = r > toleranceMm ? 2 * Math.acos(1 - toleranceMm / r) : Math.PI / 4;
-    const m = Math.max(2, Math.ceil(Math.abs(g.arcs.sweep[k]) / step));
+    const m = Math.max(2, Math.ceil(Math.abs(g.arcs.sweep[arc]) / step));
     chords[i] = m;
     total += m - 1;
   }
