@@ -212,6 +212,26 @@ describe('remove or archive (programmer)', () => {
   });
 });
 
+describe('operator', () => {
+  it('reads the machine and materials pages without any control that changes them', async () => {
+    const [router] = await dbm.db.select().from(s.machines).where(eq(s.machines.name, 'Router 1'));
+    const page = await signedInPage('lena@alder-finch.example');
+    const machine = new MachinePage(page, server.baseUrl);
+    await machine.open(router.id);
+    await page.getByTestId('profile-view').first().waitFor();
+    for (const name of ['Edit profile', 'Edit']) expect(await page.getByRole('link', { name, exact: true }).count()).toBe(0);
+    expect(await page.locator('main form').count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Remove machine' }).count()).toBe(0);
+    await shot(page, 'machine-page-operator');
+    const forbidden = await page.goto(`${server.baseUrl}/machines/new`);
+    expect(forbidden?.status()).toBe(403);
+    await page.goto(`${server.baseUrl}/materials`);
+    await page.getByRole('table', { name: "Your shop's materials" }).waitFor();
+    expect(await page.locator('main form').count()).toBe(0);
+    await page.close();
+  });
+});
+
 describe('materials page', () => {
   it('adds a material typed in inches and euros; the list shows it in the shop units', async () => {
     const page = await signedInPage('priya@alder-finch.example');

@@ -5,6 +5,7 @@
 // not deleted, and leaves the default list; another shop's ids answer 404; estimators and
 // operators get 403 on every write. Rows are invented for the test and removed after.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { and, eq, like } from 'drizzle-orm';
@@ -223,6 +224,36 @@ describe('archive instead of delete', () => {
     expect(edit.status).toBe(409);
     const restored = await callApi<MachineBody>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, { archived: false });
     expect(restored.body.machine.archivedAt).toBeNull();
+  });
+
+  it('a machine only an estimate names is archived too', async () => {
+    const machine = await create('Estimated');
+    const { db } = dbm;
+    const [{ id: jobId }] = await db
+      .insert(s.jobs)
+      .values({ shopId: shopA, title: `${PREFIX}job with an estimate`, customerId: customerA, sheetWidthMm: 1220, sheetLengthMm: 2440, sheetThicknessMm: 18, holdDown: 'tabs', quantity: 1 })
+      .$returningId();
+    const [{ id: programId }] = await db.insert(s.programs).values({ shopId: shopA, jobId, name: 'test-m.nc' }).$returningId();
+    const [{ id: programVersionId }] = await db
+      .insert(s.programVersions)
+      .values({ shopId: shopA, programId, version: 1, objectKey: `shops/${shopA}/test-m/${programId}.nc`, sha256: 'a'.repeat(64), bytes: 10, lines: 1 })
+      .$returningId();
+    await db.insert(s.estimates).values({
+      shopId: shopA, programId, programVersionId, programVersion: 1, machineId: machine.id, machineVersion: 1, engineVersion: 'test',
+      inputKey: randomBytes(32).toString('hex'), settings: { sheet: null, zero: 'top', hold: null, vacuumKpa: null },
+      // stored as failed, so the estimate queue of the running app leaves the row alone
+      status: 'failed', error: 'test row, never computed',
+    });
+    try {
+      const removed = await callApi<{ result: string }>(jars.priya, 'DELETE', `/api/machines/${machine.id}`);
+      expect(removed.body.result).toBe('archived');
+      expect((await read(machine.id)).machine.archivedAt).not.toBeNull();
+    } finally {
+      await db.delete(s.estimates).where(eq(s.estimates.programId, programId));
+      await db.delete(s.programVersions).where(eq(s.programVersions.programId, programId));
+      await db.delete(s.programs).where(eq(s.programs.id, programId));
+      await db.delete(s.jobs).where(eq(s.jobs.id, jobId));
+    }
   });
 
   it('a machine nothing refers to is deleted with its tools and versions', async () => {

@@ -105,7 +105,7 @@ export default async function MachinePage({ params, searchParams }: Props) {
         <section aria-labelledby="tools-title" className="flex flex-col gap-3">
           <h2 id="tools-title">Tools</h2>
           <p className="text-ink-soft">Adding, changing or removing a tool saves a new profile version; a new description alone does not.</p>
-          <div className="grid items-start gap-6 lg:grid-cols-[3fr_2fr]">
+          <div className={`grid items-start gap-6 ${editable ? 'lg:grid-cols-[3fr_2fr]' : ''}`}>
             {machine.tools.length === 0 ? (
               <Notice tone="note" title="No tools yet." role="status">
                 {editable ? 'Add the first one with the form.' : archived ? 'It was archived without tools.' : `${whoMay('machines:write', true)} can add tools.`}
