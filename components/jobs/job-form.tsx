@@ -3,7 +3,7 @@
 // it; choosing a machine fills in its usual hold-down and the vacuum level last used on it.
 // Both stay editable. The shared zod schema checks the form in the page (field errors at
 // once, focus on the first one), and the server action checks it again.
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import { FieldShell, InputField, SelectField } from '@/components/ui/field';
 import { LinkButton } from '@/components/ui/link-button';
@@ -29,13 +29,29 @@ const num = (v: number | null | undefined) => (v === null || v === undefined ? '
 export function JobForm({ mode, jobId, options, initial, action }: Props) {
   const { state, fields, pending, onSubmit, formRef } = useValidatedAction(jobCreateSchema, action);
   const [values, setValues] = useState(initial);
-  const set = (patch: Partial<JobFormValues>) => setValues((v) => ({ ...v, ...patch }));
+  // fields changed since their errors were shown: their old message no longer applies
+  const [changed, setChanged] = useState<ReadonlySet<string>>(new Set());
+  const set = (patch: Partial<JobFormValues>) => {
+    setValues((v) => ({ ...v, ...patch }));
+    setChanged((c) => new Set([...c, ...Object.keys(patch)]));
+  };
+  const errorsOf = (name: keyof JobFormValues) => (changed.has(name) ? undefined : fields[name]);
 
   // keyboard users land on the first field that needs fixing
+  // (fields is a new object on every render; its text says when the errors really changed)
+  const [submits, setSubmits] = useState(0);
+  const fieldsKey = JSON.stringify(fields);
   useEffect(() => {
-    if (Object.keys(fields).length === 0) return;
-    formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus();
-  }, [fields, formRef]);
+    if (fieldsKey === '{}') return;
+    // after the render that shows the new errors
+    requestAnimationFrame(() => formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus());
+  }, [fieldsKey, submits, formRef]);
+
+  function submit(event: FormEvent<HTMLFormElement>) {
+    setChanged(new Set());
+    setSubmits((n) => n + 1);
+    onSubmit(event);
+  }
 
   function chooseMaterial(id: string) {
     const material = options.materials.find((m) => String(m.id) === id);
@@ -54,13 +70,13 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
   const title = mode === 'create' ? 'New job' : 'Edit job';
 
   return (
-    <form ref={formRef} onSubmit={onSubmit} noValidate aria-label={title} className="flex max-w-4xl flex-col gap-6 rounded-md border-2 border-rule bg-panel p-5">
+    <form ref={formRef} onSubmit={submit} noValidate aria-label={title} className="flex max-w-4xl flex-col gap-6 rounded-md border-2 border-rule bg-panel p-5">
       <ActionNotice state={state} />
       {jobId ? <input type="hidden" name="jobId" value={jobId} /> : null}
 
       <fieldset className="grid gap-4 md:grid-cols-2">
         <legend className="mb-2 text-lg font-bold">The job</legend>
-        <InputField id="job-title" name="title" label="Title" required value={values.title} onChange={(e) => set({ title: e.target.value })} errors={fields.title} hint="What the shop calls it, e.g. “Window display shelf brackets”." />
+        <InputField id="job-title" name="title" label="Title" required value={values.title} onChange={(e) => set({ title: e.target.value })} errors={errorsOf('title')} hint="What the shop calls it, e.g. “Window display shelf brackets”." />
         <SelectField
           id="job-customer"
           name="customerId"
@@ -68,11 +84,11 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           required
           value={values.customerId}
           onChange={(e) => set({ customerId: e.target.value })}
-          errors={fields.customerId}
+          errors={errorsOf('customerId')}
           options={[{ value: '', label: 'Choose a customer' }, ...options.customers.map((c) => ({ value: String(c.id), label: c.name }))]}
         />
-        <InputField id="job-quantity" name="quantity" label="Quantity (pieces)" inputMode="numeric" required value={values.quantity} onChange={(e) => set({ quantity: e.target.value })} errors={fields.quantity} />
-        <InputField id="job-due" name="dueDate" type="date" label="Due date" hint="Optional." value={values.dueDate} onChange={(e) => set({ dueDate: e.target.value })} errors={fields.dueDate} />
+        <InputField id="job-quantity" name="quantity" label="Quantity (pieces)" inputMode="numeric" required value={values.quantity} onChange={(e) => set({ quantity: e.target.value })} errors={errorsOf('quantity')} />
+        <InputField id="job-due" name="dueDate" type="date" label="Due date" hint="Optional." value={values.dueDate} onChange={(e) => set({ dueDate: e.target.value })} errors={errorsOf('dueDate')} />
       </fieldset>
 
       <fieldset className="grid gap-4 md:grid-cols-2">
@@ -83,7 +99,7 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           label="Machine"
           value={values.machineId}
           onChange={(e) => chooseMachine(e.target.value)}
-          errors={fields.machineId}
+          errors={errorsOf('machineId')}
           hint="Estimates on upload are made for this machine; choosing it fills in its usual hold-down."
           options={options.machines.map((m) => ({ value: String(m.id), label: m.archived ? `${m.name} (archived)` : m.name }))}
         />
@@ -93,14 +109,14 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           label="Material"
           value={values.materialId}
           onChange={(e) => chooseMaterial(e.target.value)}
-          errors={fields.materialId}
+          errors={errorsOf('materialId')}
           hint="Choosing one fills in its sheet size and thickness."
           options={[{ value: '', label: 'Not set' }, ...options.materials.map((m) => ({ value: String(m.id), label: m.name }))]}
         />
         <div className="grid gap-4 sm:grid-cols-3 md:col-span-2">
-          <InputField id="job-sheet-x" name="sheetWidthMm" label="Sheet X (mm)" inputMode="decimal" required value={values.sheetWidthMm} onChange={(e) => set({ sheetWidthMm: e.target.value })} errors={fields.sheetWidthMm} />
-          <InputField id="job-sheet-y" name="sheetLengthMm" label="Sheet Y (mm)" inputMode="decimal" required value={values.sheetLengthMm} onChange={(e) => set({ sheetLengthMm: e.target.value })} errors={fields.sheetLengthMm} />
-          <InputField id="job-sheet-t" name="sheetThicknessMm" label="Thickness T (mm)" inputMode="decimal" required value={values.sheetThicknessMm} onChange={(e) => set({ sheetThicknessMm: e.target.value })} errors={fields.sheetThicknessMm} />
+          <InputField id="job-sheet-x" name="sheetWidthMm" label="Sheet X (mm)" inputMode="decimal" required value={values.sheetWidthMm} onChange={(e) => set({ sheetWidthMm: e.target.value })} errors={errorsOf('sheetWidthMm')} />
+          <InputField id="job-sheet-y" name="sheetLengthMm" label="Sheet Y (mm)" inputMode="decimal" required value={values.sheetLengthMm} onChange={(e) => set({ sheetLengthMm: e.target.value })} errors={errorsOf('sheetLengthMm')} />
+          <InputField id="job-sheet-t" name="sheetThicknessMm" label="Thickness T (mm)" inputMode="decimal" required value={values.sheetThicknessMm} onChange={(e) => set({ sheetThicknessMm: e.target.value })} errors={errorsOf('sheetThicknessMm')} />
         </div>
         <SelectField
           id="job-zero"
@@ -108,7 +124,7 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           label="Z zero"
           value={values.zZero}
           onChange={(e) => set({ zZero: e.target.value as ZZero })}
-          errors={fields.zZero}
+          errors={errorsOf('zZero')}
           hint="Where the program's Z 0 is."
           options={[
             { value: 'top', label: 'Top of stock' },
@@ -125,7 +141,7 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           label="Hold-down method"
           value={values.holdDown}
           onChange={(e) => set({ holdDown: e.target.value as HoldDown, vacuumKpa: e.target.value === 'vacuum' ? values.vacuumKpa || num(machine?.lastVacuumKpa) : '' })}
-          errors={fields.holdDown}
+          errors={errorsOf('holdDown')}
           hint={machine ? `${machine.name} usually uses: ${HOLD_DOWN_LABELS[machine.defaultHoldDown].toLowerCase()}.` : undefined}
           options={HOLD_DOWNS.map((h) => ({ value: h, label: HOLD_DOWN_LABELS[h] }))}
         />
@@ -137,20 +153,20 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           disabled={!vacuum}
           value={vacuum ? values.vacuumKpa : ''}
           onChange={(e) => set({ vacuumKpa: e.target.value })}
-          errors={fields.vacuumKpa}
+          errors={errorsOf('vacuumKpa')}
           hint={vacuum ? (machine?.lastVacuumKpa ? `The level last used on ${machine.name}; change it if the gauge reads otherwise.` : 'Read it off the gauge; optional.') : 'Only for vacuum hold-down.'}
         />
       </fieldset>
 
-      <FieldShell id="job-notes" label="Notes" hint="Optional: edge finish, packing, what the customer asked for." errors={fields.notes}>
+      <FieldShell id="job-notes" label="Notes" hint="Optional: edge finish, packing, what the customer asked for." errors={errorsOf('notes')}>
         <textarea
           id="job-notes"
           name="notes"
           rows={3}
           value={values.notes}
           onChange={(e) => set({ notes: e.target.value })}
-          aria-invalid={fields.notes?.length ? true : undefined}
-          aria-describedby={`job-notes-hint${fields.notes?.length ? ' job-notes-error' : ''}`}
+          aria-invalid={errorsOf('notes')?.length ? true : undefined}
+          aria-describedby={`job-notes-hint${errorsOf('notes')?.length ? ' job-notes-error' : ''}`}
           className="rounded-md border-2 border-rule bg-panel px-3 py-2 text-base text-ink aria-[invalid=true]:border-3 aria-[invalid=true]:border-fault"
         />
       </FieldShell>

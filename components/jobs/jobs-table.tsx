@@ -22,14 +22,14 @@ const COLUMNS: Column[] = [
     header: 'Job',
     sort: 'title',
     cell: (j) => (
-      <Link href={`/jobs/${j.id}`} className="font-bold text-spruce underline underline-offset-4">
+      <Link href={`/jobs/${j.id}`} className="inline-block min-w-52 font-bold text-spruce underline underline-offset-4">
         {j.title}
       </Link>
     ),
   },
-  { key: 'customer', header: 'Customer', sort: 'customer', cell: (j) => j.customerName },
+  { key: 'customer', header: 'Customer', sort: 'customer', cell: (j) => <span className="inline-block min-w-40">{j.customerName}</span> },
   { key: 'machine', header: 'Machine', sort: 'machine', cell: (j) => j.machineName ?? <span className="text-ink-soft">not set</span> },
-  { key: 'material', header: 'Material', cell: (j) => j.materialName ?? <span className="text-ink-soft">not set</span> },
+  { key: 'material', header: 'Material', cell: (j) => (j.materialName ? <span className="inline-block min-w-36">{j.materialName}</span> : <span className="text-ink-soft">not set</span>) },
   {
     key: 'sheet',
     header: 'Sheet X × Y × T (mm)',

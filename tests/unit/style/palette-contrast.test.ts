@@ -75,6 +75,7 @@ const TEXT_PAIRS: [string, string, string][] = [
   ['white', 'night', 'navigation bar, table heads'],
   ['white', 'night-raised', 'sign-out button, hovered'],
   ['rule-light', 'night', 'navigation links not current'],
+  ['ink', 'spruce-light', 'upload drop area while files are dragged over it'],
   ...TONES.flatMap((t): [string, string, string][] => [
     [t, `${t}-tint`, `${t} status and message on its tint`],
     [t, 'panel', `${t} words on a form or table row`],
@@ -95,6 +96,7 @@ const BORDER_PAIRS: [string, string, string][] = [
   ['ink', 'ground', 'focus ring'],
   ['ink', 'panel', 'focus ring'],
   ['spruce-light', 'night', 'focus ring and current-page bar on the navigation bar'],
+  ['spruce', 'spruce-light', 'edge of the upload drop area while files are dragged over it'],
   ...TONES.flatMap((t): [string, string, string][] => [
     [t, 'ground', `edge of a ${t} box on the page`],
     [t, 'panel', `edge of a ${t} box in a card`],
