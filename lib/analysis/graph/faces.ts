@@ -57,10 +57,28 @@ export function prune(g: CutGraph): PrunedGraph {
   return { alive, deg, start, adj };
 }
 
+/** each vertex's live edges in turning order, and each edge end's place in its vertex's list */
+interface TurnOrder {
+  /** live edges at each vertex; they come first in the pruned graph's list, in turning order */
+  count: Int32Array;
+  /** at a branch point (3+ live edges): edge e's place in the list of its end u, and of its end v */
+  posAtU: Int32Array;
+  posAtV: Int32Array;
+}
+
+/**
+ * The closed loops of the graph: every bounded face, counter-clockwise (stage 4 of the analysis).
+ * Two steps: the live edges at each vertex put in turning order (turnOrder), then the faces
+ * walked over the half-edges (walkFaces).
+ */
 export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): GraphLoop[] {
+  if (g.edgeCount === 0) return [];
+  return walkFaces(g, pruned, turnOrder(g, pruned));
+}
+
+function turnOrder(g: CutGraph, pruned: PrunedGraph): TurnOrder {
   const V = g.vertexCount;
   const E = g.edgeCount;
-  if (E === 0) return [];
   const eu = g.eu, ev = g.ev;
   const { alive, deg, start, adj } = pruned;
   // sort live edges around each vertex by angle, remember each edge end's position; in place
@@ -109,7 +127,15 @@ export function extractLoops(g: CutGraph, pruned: PrunedGraph = prune(g)): Graph
     }
     count[v] = m;
   }
-  // walk faces over half-edges: h = 2e (u→v) or 2e+1 (v→u)
+  return { count, posAtU, posAtV };
+}
+
+/** the bounded faces, walked over half-edges: h = 2e (u→v) or 2e+1 (v→u) */
+function walkFaces(g: CutGraph, pruned: PrunedGraph, turns: TurnOrder): GraphLoop[] {
+  const E = g.edgeCount;
+  const eu = g.eu, ev = g.ev, vx = g.vx, vy = g.vy;
+  const { alive, start, adj: order } = pruned;
+  const { count, posAtU, posAtV } = turns;
   const used = new Uint8Array(2 * E);
   const loops: GraphLoop[] = [];
   // every half-edge is walked once, so the walks fit one after another in 2E slots: a loop is

@@ -130,6 +130,13 @@ function graphCapacity(moves: MoveList, bandTop: number): { edges: number; arcs:
   return { edges: Math.max(1 << 14, pieces), arcs: arcPieces };
 }
 
+/**
+ * The pass itself. Kept as one loop on purpose: its per-move state (the previous point, the
+ * move's box, the arc cursor, the last tools) lives in locals, and a step split out into a
+ * function would take those doubles as arguments (boxed when the call is not inlined) or keep
+ * them in fields (stored boxed): the costs DEVELOPERS.md "Hot loops" measured on this pass. The
+ * work that is not per move is already out of it (arcExtent, flatArc, graphCapacity, the checks).
+ */
 export function scanMoves(moves: MoveList, levels: ScanLevels, checks: ProgramChecks): ScanResult {
   const { x, y, z, kind, flags, tool, feed, line, arcs } = moves;
   const n = moves.count;
