@@ -53,7 +53,7 @@ export function MaterialForm({ unit, currency, material, action }: Props) {
   }
 
   const { state, fields, pending, onSubmit, formRef } = useConvertedAction(action, convert, { resetOnSuccess: !material });
-  const title = material ? `Edit ${material.name}` : 'New material';
+  const title = material ? 'Details' : 'New material';
   const p = material ? `material-${material.id}` : 'new-material';
   return (
     <form ref={formRef} onSubmit={onSubmit} noValidate aria-label={material ? 'Edit material' : 'New material'} className="flex flex-col gap-4 rounded-md border-2 border-rule bg-panel p-5">

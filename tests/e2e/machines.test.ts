@@ -141,6 +141,17 @@ describe('inch display (admin sets it)', () => {
     await page.getByRole('table', { name: `Tools of ${NAME}` }).waitFor();
     expect(await page.getByRole('table', { name: `Tools of ${NAME}` }).locator('tbody td').nth(1).innerText()).toBe('0.25');
     await shot(page, 'machine-page-inch-tools');
+
+    // a new description alone is not a profile change
+    await page.getByRole('link', { name: 'Edit tool 3' }).click();
+    await page.waitForURL(/\/tools\/\d+$/);
+    const toolForm = page.getByRole('form', { name: 'Tool 3' });
+    expect(await toolForm.getByLabel('Diameter (in)').inputValue()).toBe('0.25');
+    await toolForm.getByLabel('Description').fill('1/4 in compression, sign faces');
+    await shot(page, 'tool-edit-inch');
+    await toolForm.getByLabel('Description').press('Enter');
+    await page.waitForURL(new RegExp(`/machines/${machineId}\\?saved=tool-same&v=3$`));
+    expect(await machine.statusMessage()).toBe('Tool saved. Only the description changed, so the profile stays version 3.');
     await page.close();
   });
 });
@@ -247,6 +258,17 @@ describe('materials page', () => {
     // 1/8 in = 3.175 mm; 4 × 8 ft = 1219.2 × 2438.4 mm (25.4 mm per inch)
     expect(row).toMatchObject({ thicknessMm: 3.175, sheetWidthMm: 1219.2, sheetLengthMm: 2438.4, costPerSheetMinor: 4250 });
     await shot(page, 'materials');
+
+    await page.getByRole('link', { name: 'Test M ABS 1/8 in' }).click();
+    const edit = page.getByRole('form', { name: 'Edit material' });
+    expect(await edit.getByLabel('Thickness (in)').inputValue()).toBe('0.125');
+    await edit.getByLabel('Cost per sheet (EUR)').fill('44');
+    await shot(page, 'material-edit');
+    await edit.getByRole('button', { name: 'Save material' }).click();
+    await page.waitForURL(/\/materials\?saved=1$/);
+    expect(await materials.rowText('Test M ABS 1/8 in')).toContain('€44.00');
+    const [saved] = await dbm.db.select().from(s.materials).where(eq(s.materials.name, 'Test M ABS 1/8 in'));
+    expect(saved).toMatchObject({ thicknessMm: 3.175, costPerSheetMinor: 4400 });
     await page.close();
   });
 });

@@ -29,7 +29,7 @@ export default async function MaterialPage({ params }: { params: Promise<{ mater
     <>
       <PageHeader
         title={material.name}
-        lead={material.jobCount === 1 ? '1 job uses this material.' : `${material.jobCount} jobs use this material.`}
+        lead={material.jobCount === 0 ? 'No job uses this material yet.' : material.jobCount === 1 ? '1 job uses this material.' : `${material.jobCount} jobs use this material.`}
         actions={
           <Link href="/materials" className="font-bold text-spruce underline underline-offset-4">
             Back to materials
@@ -45,7 +45,10 @@ export default async function MaterialPage({ params }: { params: Promise<{ mater
               Jobs name this material, so it stays. Change their material first if it must go.
             </Notice>
           ) : (
-            <ConfirmAction action={deleteMaterialAction} hidden={{ materialId: material.id }} label="Remove material" question={`Remove ${material.name}?`} confirmLabel="Yes, remove" />
+            <>
+              <p className="text-ink-soft">No job uses it, so it can be removed.</p>
+              <ConfirmAction action={deleteMaterialAction} hidden={{ materialId: material.id }} label="Remove material" question={`Remove ${material.name}?`} confirmLabel="Yes, remove" />
+            </>
           )}
         </section>
       </div>
