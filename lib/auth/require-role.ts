@@ -47,10 +47,17 @@ export async function requireRole(roles: readonly Role[], what = 'page', options
   return user;
 }
 
-const SUBJECT: Record<string, string> = { jobs: 'job', machines: 'machine', customers: 'customer', users: 'user', programs: 'program', estimates: 'estimate' };
+/**
+ * The subject of an action's forbidden:<subject> code, derived from the action's name: its
+ * resource in the singular ('jobs:write' → 'job', 'shop:write' → 'shop'), so a new resource in
+ * the table needs no second edit here.
+ */
+function subjectOf(action: Action): string {
+  const resource = action.slice(0, action.indexOf(':'));
+  return resource.endsWith('s') ? resource.slice(0, -1) : resource;
+}
 
 /** requireRole with the roles looked up in the table, e.g. requireAction('jobs:write'). */
 export function requireAction(action: Action): Promise<SessionUser> {
-  const resource = action.split(':')[0];
-  return requireRole(ACTIONS[action], SUBJECT[resource] ?? resource);
+  return requireRole(ACTIONS[action], subjectOf(action));
 }
