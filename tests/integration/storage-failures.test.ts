@@ -38,6 +38,16 @@ describe('missing objects (S3 fake)', () => {
   });
 });
 
+describe('a bucket that does not exist', () => {
+  // Known gap, left for the storage owner (lib/storage/s3.ts): getObject maps NoSuchBucket to
+  // null along with NoSuchKey, so a misnamed S3_BUCKET reads every stored program as missing
+  // instead of failing as the misconfiguration it is. it.fails until getObject tells the two
+  // apart (ensureBucket still needs NoSuchBucket as "missing" for HeadBucket).
+  it.fails('getObject from a missing bucket is an error, not a missing object', async () => {
+    await expect(getObject(`${prefix}/any.nc`, `kerfcast-missing-${randomBytes(3).toString('hex')}`)).rejects.toThrow();
+  });
+});
+
 describe('a store that does not answer', () => {
   const saved = holder.kerfcastS3;
   afterEach(() => {
