@@ -61,6 +61,7 @@ export interface AnalysisInput {
   settings?: Partial<AnalysisSettings>;
 }
 
+/** a box in mm, work frame: the one box type that passes between the stages and leaves the analysis (grid boxes stay inside the shape stages) */
 export interface BBox {
   minX: number;
   minY: number;

@@ -242,8 +242,14 @@ export function pointInRegion(xMm: number, yMm: number, region: Paths, areas: nu
   return winding > 0;
 }
 
-/** integer bounding box [minX, minY, maxX, maxY] of paths in grid units, null when empty */
-export function pathsGridBox(paths: Paths): number[] | null {
+/**
+ * A box on Clipper's integer grid (SCALE units per mm): minX, minY, maxX, maxY. The one grid box
+ * type; it stays inside the shape stages, and leaves them as a BBox in mm (gridBoxMm).
+ */
+export type GridBox = Float64Array;
+
+/** the grid box of paths, null when empty */
+export function pathsGridBox(paths: Paths): GridBox | null {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const p of paths) {
     for (const q of p) {
@@ -253,7 +259,7 @@ export function pathsGridBox(paths: Paths): number[] | null {
       if (q.y > maxY) maxY = q.y;
     }
   }
-  return minX > maxX ? null : [minX, minY, maxX, maxY];
+  return minX > maxX ? null : Float64Array.of(minX, minY, maxX, maxY);
 }
 
 export function pathsBBox(paths: Paths): BBox | null {
@@ -262,10 +268,10 @@ export function pathsBBox(paths: Paths): BBox | null {
 }
 
 /**
- * The one conversion of a grid box (minX, minY, maxX, maxY in grid units, relative to the grid
- * point ox, oy) to the box in mm that leaves the module: grid boxes stay inside the shapes.
+ * The one conversion of a grid box (relative to the grid point ox, oy) to the box in mm that
+ * leaves the shape stages.
  */
-export function gridBoxMm(b: ArrayLike<number>, ox: number, oy: number): BBox {
+export function gridBoxMm(b: GridBox, ox: number, oy: number): BBox {
   return { minX: (b[0] + ox) / SCALE, minY: (b[1] + oy) / SCALE, maxX: (b[2] + ox) / SCALE, maxY: (b[3] + oy) / SCALE };
 }
 

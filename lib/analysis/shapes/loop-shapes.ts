@@ -9,7 +9,7 @@
 // graph's vertices in the first place.
 import type { CutGraph } from '../graph/cut-graph';
 import type { GraphLoop } from '../graph/faces';
-import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type Ring } from '../geometry/polygons';
+import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type GridBox, type Ring } from '../geometry/polygons';
 import { hashEnd, hashMix, hashStart, ScratchKey, ShapeCache } from './shape-cache';
 
 // module-level copies: an imported binding is read through an accessor on every use in the hot loops
@@ -22,8 +22,8 @@ export interface LoopShape {
   ring: Ring;
   areaMm2: number;
   perimeterMm: number;
-  /** grid box relative to the origin: minX, minY, maxX, maxY */
-  box: Float64Array;
+  /** grid box relative to the origin */
+  box: GridBox;
 }
 
 /** a loop at its place: the shared shape and the grid point its origin sits at */

@@ -6,7 +6,7 @@
 // (shape-cache); a slug's exact area is worked out only when its verdict or its finding's
 // text needs it, from the bounds A − r·P ≤ slug ≤ A of the hole's interior A and perimeter P.
 import { FindingSink, fmt, THROWN_PIECE } from '../checks/findings';
-import { differencePaths, gridBoxMm, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, type Paths } from '../geometry/polygons';
+import { differencePaths, gridBoxMm, isConvex, offsetPaths, pathInside, pathPerimeterMm, pathsAreaMm2, pathsBBox, pathsGridBox, type GridBox, type Paths } from '../geometry/polygons';
 import { freedPieceHeld, freedPieceHold } from '../checks/hold';
 import type { LoopNode } from './nesting';
 import type { LoopShape } from './loop-shapes';
@@ -44,7 +44,7 @@ interface PartShape {
 }
 
 /** a part shape relative to its key's origin, with the outline's grid box */
-type RelShape = PartShape & { box: number[] | null };
+type RelShape = PartShape & { box: GridBox | null };
 
 /**
  * a part shape at its place: the outline paths are only made if asked for (the cut-order
