@@ -7,7 +7,7 @@ import { db } from '@/db/client';
 import { estimates, jobs, machines, programs, programVersions, type EstimateRow } from '@/db/schema';
 import { jobEstimateSettings, requestEstimate, wakeEstimateQueue, type EstimateRequested } from '@/lib/estimate-server';
 import { AppError } from '@/lib/errors';
-import { getObject } from '@/lib/storage/s3';
+import { openProgramObject, type ProgramObjectStream } from '@/lib/programs/program-storage';
 import type { EstimateStatus } from '@/lib/validation/enums';
 import type { EstimateRequestInput } from '@/lib/validation/estimates';
 
@@ -70,11 +70,9 @@ export async function getEstimate(shopId: number, estimateId: number): Promise<E
   return row ?? null;
 }
 
-/** The stored report JSON, as the worker wrote it (the CLI's --json line without its newline); null when missing. */
-export async function readEstimateReport(row: Pick<EstimateRow, 'reportKey'>): Promise<string | null> {
-  if (!row.reportKey) return null;
-  const stored = await getObject(row.reportKey);
-  return stored ? stored.body.toString('utf8') : null;
+/** The stored report JSON as a stream (never read whole into memory); null when missing. */
+export async function openEstimateReport(row: Pick<EstimateRow, 'reportKey'>): Promise<ProgramObjectStream | null> {
+  return row.reportKey ? openProgramObject(row.reportKey) : null;
 }
 
 export interface RequestedEstimate extends EstimateRequested {

@@ -28,6 +28,8 @@ export interface EstimateTaskResult {
   reportBytes: number;
   /** reading the program, computing and storing the report, in the worker */
   computeMs: number;
+  /** where computeMs went: reading and checking the program, the engine, storing the report */
+  phasesMs: { read: number; engine: number; store: number };
   totalSeconds: number;
   calibratedSeconds: number;
   errorCount: number;

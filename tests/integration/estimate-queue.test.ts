@@ -180,7 +180,7 @@ describe('leases', () => {
     expect(second.id).toBe(id);
     // the slow one finds out when it renews, and cannot store its result
     expect(await renewLeases(one.db, 'slow-proc', [id], 30_000)).toEqual([]);
-    const result = { ok: true as const, reportKey: 'k', reportBytes: 1, computeMs: 5, totalSeconds: 12.5, calibratedSeconds: 12.5, errorCount: 0, warningCount: 1, infoCount: 2, partCount: 3 };
+    const result = { ok: true as const, reportKey: 'k', reportBytes: 1, computeMs: 5, phasesMs: { read: 1, engine: 3, store: 1 }, totalSeconds: 12.5, calibratedSeconds: 12.5, errorCount: 0, warningCount: 1, infoCount: 2, partCount: 3 };
     expect(await completeEstimate(one.db, 'slow-proc', first, result)).toBe(false);
     expect(await failEstimate(one.db, 'slow-proc', id, 'late')).toBe(false);
     expect(await renewLeases(two.db, 'fast-proc', [id], 30_000)).toEqual([id]);

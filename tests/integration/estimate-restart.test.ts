@@ -16,7 +16,7 @@ const PORT = 3117;
 
 let t: TestDb;
 let shop: EstimateShop;
-let servers: AppServer[] = [];
+const servers: AppServer[] = [];
 
 async function row(id: number) {
   const [r] = await t.db.select().from(s.estimates).where(eq(s.estimates.id, id));

@@ -33,9 +33,13 @@ export interface EstimateShop {
 }
 
 /** A shop with its own machine (a copy of fixtures/machines/router-1.json) and one vacuum job on 18 mm birch. */
-export async function createEstimateShop(db: Db, label: string): Promise<EstimateShop> {
+export async function createEstimateShop(db: Db, label: string, options: { shopId?: number } = {}): Promise<EstimateShop> {
   const slug = `est-${label}-${randomBytes(3).toString('hex')}`;
-  const [{ id: shopId }] = await db.insert(s.shops).values({ name: `Estimates ${label}`, slug, currency: 'EUR' }).$returningId();
+  // an id of its own keeps a scratch database's object keys (shops/{shopId}/…) apart from another database's in the shared bucket
+  const [{ id: shopId }] = await db
+    .insert(s.shops)
+    .values({ ...(options.shopId !== undefined ? { id: options.shopId } : {}), name: `Estimates ${label}`, slug, currency: 'EUR' })
+    .$returningId();
   const hash = await bcrypt.hash(PASSWORD, 4);
   const users = {} as EstimateShop['users'];
   for (const role of ['programmer', 'estimator', 'operator'] as const) {
