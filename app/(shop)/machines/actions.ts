@@ -5,7 +5,8 @@
 // mm and minor units (the forms convert) and are judged by the same schemas.
 import { revalidatePath } from 'next/cache';
 import { redirect } from 'next/navigation';
-import { addTool, createMachine, removeMachine, removeTool, updateMachine, updateTool } from '@/db/queries/machines';
+import { addTool, removeMachine, removeTool, updateMachine, updateTool } from '@/db/queries/machine-changes';
+import { createMachine } from '@/db/queries/machines';
 import { setLengthUnit } from '@/db/queries/shops';
 import { requireAction } from '@/lib/auth/require-role';
 import { runAction, type ActionState } from '@/lib/http/action-state';

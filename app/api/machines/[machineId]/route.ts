@@ -2,7 +2,8 @@
 // profile snapshot). PATCH changes profile fields, settings or the archived mark; a change
 // of a profile field makes a new version. DELETE removes a machine nothing refers to and
 // archives one that estimates or jobs name. Another shop's machine is 404.
-import { getMachine, listMachineVersions, removeMachine, updateMachine } from '@/db/queries/machines';
+import { removeMachine, updateMachine } from '@/db/queries/machine-changes';
+import { getMachine, listMachineVersions } from '@/db/queries/machines';
 import { requireAction } from '@/lib/auth/require-role';
 import { AppError } from '@/lib/errors';
 import { handle, json, readJson } from '@/lib/http/route';

@@ -1,6 +1,7 @@
 // GET /api/machines/:machineId/tools: the machine's tool library. POST adds a tool
 // (number, diameterMm, flutes, kind, description?): a profile change, so a new version.
-import { addTool, getMachine } from '@/db/queries/machines';
+import { addTool } from '@/db/queries/machine-changes';
+import { getMachine } from '@/db/queries/machines';
 import { requireAction } from '@/lib/auth/require-role';
 import { AppError } from '@/lib/errors';
 import { handle, json, readJson } from '@/lib/http/route';

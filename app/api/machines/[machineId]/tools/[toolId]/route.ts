@@ -1,7 +1,7 @@
 // PATCH /api/machines/:machineId/tools/:toolId changes a tool (a new machine version unless
 // only its description changed); DELETE takes it out of the library (a new version; older
 // versions keep it in their snapshots). Another shop's machine or tool is 404.
-import { removeTool, updateTool } from '@/db/queries/machines';
+import { removeTool, updateTool } from '@/db/queries/machine-changes';
 import { requireAction } from '@/lib/auth/require-role';
 import { handle, json, readJson } from '@/lib/http/route';
 import { parseId } from '@/lib/validation/ids';
