@@ -87,6 +87,8 @@ function expectNoProblems(problems: Problems, where: string) {
 const SIGNED_IN_PAGES = [
   { path: '/jobs', heading: 'Jobs', status: 200 },
   { path: '/machines', heading: 'Machines', status: 200 },
+  { path: '/machines/new', heading: 'New machine', status: 200 },
+  { path: '/materials', heading: 'Materials', status: 200 },
   { path: '/customers', heading: 'Customers', status: 200 },
   { path: '/admin/users', heading: 'Users', status: 200 },
   { path: '/no-such-page', heading: 'Nothing here', status: 404 },
