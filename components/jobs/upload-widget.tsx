@@ -22,9 +22,11 @@ interface Item {
   message: string;
 }
 
-const STATE_WORDS: Record<ItemState, { glyph: string; word: string; tone: string }> = {
+const STATE_WORDS: Record<ItemState | 'storing', { glyph: string; word: string; tone: string }> = {
   waiting: { glyph: '…', word: 'Waiting', tone: 'text-ink-soft' },
   sending: { glyph: '↑', word: 'Sending', tone: 'text-ink' },
+  // every byte sent, the answer not in yet: the server is streaming it to storage and checking it
+  storing: { glyph: '↑', word: 'Storing', tone: 'text-ink' },
   stored: { glyph: '✓', word: 'Stored', tone: 'text-ok' },
   refused: { glyph: '✕', word: 'Not sent', tone: 'text-fault' },
   failed: { glyph: '✕', word: 'Not stored', tone: 'text-fault' },
@@ -130,7 +132,7 @@ export function UploadWidget({ jobId, maxBytes, onStored }: { jobId: number; max
       {items.length > 0 ? (
         <ul className="mt-4 flex flex-col gap-3" aria-label="Files being uploaded" aria-live="polite">
           {items.map((item) => {
-            const words = STATE_WORDS[item.state];
+            const words = STATE_WORDS[item.state === 'sending' && item.sentBytes >= item.file.size ? 'storing' : item.state];
             const share = item.file.size > 0 ? item.sentBytes / item.file.size : 0;
             return (
               <li key={item.key} className="rounded-md border-2 border-rule-light p-3" data-testid="upload-item" data-state={item.state}>

@@ -145,16 +145,17 @@ describe('a programmer creates a job and uploads its program', () => {
       const state = await item.getAttribute('data-state');
       seen.push({ state, value: await job.uploadProgress(PROGRAM), text: (await item.innerText()).replace(/\s+/g, ' ') });
       if (state === 'stored' || state === 'failed') break;
-      if (seen.length === 2) await job.uploadWidget().screenshot({ path: path.join(SCREENSHOT_DIR, 'job-upload-progress.png') });
+      if (seen.length === 1) await job.uploadWidget().screenshot({ path: path.join(SCREENSHOT_DIR, 'job-upload-progress.png') });
       await page.waitForTimeout(100);
     }
     expect(await item.getAttribute('data-state'), await item.innerText()).toBe('stored');
     const whileSending = seen.filter((x) => x.state === 'sending');
     expect(whileSending.length, JSON.stringify(seen)).toBeGreaterThan(0);
-    for (const x of whileSending) expect(x.text).toMatch(/Sending: shelf-brackets-birch-18mm\.nc.* of 15\.2 KiB · \d+ %/);
+    for (const x of whileSending) expect(x.text).toMatch(/(Sending|Storing): shelf-brackets-birch-18mm\.nc.* of 15\.2 KiB · \d+ %/);
     expect(await job.uploadProgress(PROGRAM)).toBe(1);
     expect(await item.innerText()).toContain('15.2 KiB of 15.2 KiB · 100 %');
     expect(await item.innerText()).toContain(`Stored as ${PROGRAM}, version 1`);
+    await job.uploadWidget().screenshot({ path: path.join(SCREENSHOT_DIR, 'job-upload-stored.png') });
 
     const done = await job.waitForEstimate(PROGRAM);
     expect(await done.isVisible()).toBe(true);

@@ -97,6 +97,7 @@ const BORDER_PAIRS: [string, string, string][] = [
   ['ink', 'panel', 'focus ring'],
   ['spruce-light', 'night', 'focus ring and current-page bar on the navigation bar'],
   ['spruce', 'spruce-light', 'edge of the upload drop area while files are dragged over it'],
+  ['note', 'ground', 'fill of a progress bar on its track (upload, estimate)'],
   ...TONES.flatMap((t): [string, string, string][] => [
     [t, 'ground', `edge of a ${t} box on the page`],
     [t, 'panel', `edge of a ${t} box in a card`],
