@@ -125,6 +125,23 @@ describe('cross-site writes (V13.2.5, V4.2.2, finding 7)', () => {
     expect((await dbm.db.select({ id: s.customers.id }).from(s.customers).where(eq(s.customers.shopId, demoShopId))).length).toBe(before);
   });
 
+  it('a program upload (multipart) from another site is refused; from the app it gets past the check', async () => {
+    const priya = await cookieOf('priya@alder-finch.example');
+    const form = '--b\r\nContent-Disposition: form-data; name="file"; filename="x.nc"\r\nContent-Type: text/plain\r\n\r\nG0 X0\r\n--b--\r\n';
+    const upload = (origin: string) =>
+      send<{ error: { code: string } }>(`${server.baseUrl}/api/jobs/999999999/programs`, {
+        method: 'POST',
+        cookie: priya,
+        headers: { 'content-type': 'multipart/form-data; boundary=b', origin },
+        body: form,
+      });
+    const foreign = await upload('https://evil.example');
+    expect(foreign.status).toBe(403);
+    expect(foreign.body.error.code).toBe('forbidden:origin');
+    // a job that does not exist: 404 from the route itself, so the check let the upload through
+    expect((await upload(server.baseUrl)).status).toBe(404);
+  });
+
   it('the app\'s own page (same Origin, Sec-Fetch-Site same-origin, JSON) gets past the check', async () => {
     const ada = await cookieOf('ada@alder-finch.example');
     // an empty name: the answer is the validation's 422, so the origin check let it through

@@ -12,7 +12,7 @@ import { requireAction } from '@/lib/auth/require-role';
 import { env } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 import { wakeEstimateQueue } from '@/lib/estimate-server';
-import { errorResponse, handle, json } from '@/lib/http/route';
+import { errorResponse, handle, json, refuseCrossSiteWrite } from '@/lib/http/route';
 import { discardReceived, receivePrograms, type ReceiveResult, type ReceiveState } from '@/lib/programs/upload';
 import { parseId } from '@/lib/validation/ids';
 
@@ -30,6 +30,8 @@ export async function POST(request: Request, { params }: Context) {
   const state: ReceiveState = { bodyComplete: false };
   let received: ReceiveResult | null = null;
   try {
+    // not wrapped in handle() (it streams), so the cross-site write check is called here
+    refuseCrossSiteWrite(request);
     const user = await requireAction('programs:write');
     const jobId = parseId((await params).jobId, 'job');
     const job = await getJob(user.shopId, jobId);
