@@ -62,22 +62,22 @@ export function estimate(moves: MoveList, profile: MachineProfile, options: Esti
         break;
       }
     }
-    const k = kind[i];
-    if (k === K_RAPID || k === K_FEED) {
-      feedBlocks.line(i, k === K_RAPID, x[i], y[i], z[i], feed[i] / 60, Infinity, 1);
+    const moveKind = kind[i];
+    if (moveKind === K_RAPID || moveKind === K_FEED) {
+      feedBlocks.line(i, moveKind === K_RAPID, x[i], y[i], z[i], feed[i] / 60, Infinity, 1);
       if (flags[i] & EXACT_STOP) planner.flush();
-    } else if (k === K_ARC) {
+    } else if (moveKind === K_ARC) {
       while (arcRow < arcs.count && arcs.move[arcRow] < i) arcRow++;
       if (arcRow < arcs.count && arcs.move[arcRow] === i) feedBlocks.arc(i, arcs, arcRow, x[i], y[i], z[i], feed[i] / 60);
       else feedBlocks.line(i, false, x[i], y[i], z[i], feed[i] / 60, Infinity, 1); // no arc row: run as a chord
       if (flags[i] & EXACT_STOP) planner.flush();
     } else {
       planner.flush();
-      if (k === MoveKind.dwell) timeline.record(i, TimeKind.dwell, aux[i] > 0 ? aux[i] : 0);
-      else if (k === MoveKind.toolChange) timeline.record(i, TimeKind.toolChange, profile.toolChangeSeconds);
-      else if (k === MoveKind.spindleStart) timeline.record(i, TimeKind.spindle, profile.spindleSpinUpSeconds);
+      if (moveKind === MoveKind.dwell) timeline.record(i, TimeKind.dwell, aux[i] > 0 ? aux[i] : 0);
+      else if (moveKind === MoveKind.toolChange) timeline.record(i, TimeKind.toolChange, profile.toolChangeSeconds);
+      else if (moveKind === MoveKind.spindleStart) timeline.record(i, TimeKind.spindle, profile.spindleSpinUpSeconds);
       else {
-        if (k === MoveKind.programStop) programStops++;
+        if (moveKind === MoveKind.programStop) programStops++;
         timeline.record(i, TimeKind.none, 0);
       }
       feedBlocks.px = x[i];
@@ -88,7 +88,11 @@ export function estimate(moves: MoveList, profile: MachineProfile, options: Esti
   planner.flush();
   timeline.finish();
   if (!cancelled) options.onProgress?.(count, count);
+  return estimateFigures(timeline, planner, profile, count, programStops, cancelled);
+}
 
+/** the Estimate from the finished clock: totals by kind, distances, tools and the cutting feed */
+function estimateFigures(timeline: Timeline, planner: BlockPlanner, profile: MachineProfile, count: number, programStops: number, cancelled: boolean): Estimate {
   const b = timeline.byKind;
   const cuttingS = b[TimeKind.cutting];
   const dist = timeline.cuttingDistanceMm;
