@@ -1,5 +1,6 @@
 // The top bar of the signed-in app: the product name, the pages the user's role may
-// use (from lib/auth/roles.ts), who is signed in, and sign-out.
+// use (from lib/auth/roles.ts), who is signed in, their password page, and sign-out.
+import Link from 'next/link';
 import { pagesFor } from '@/lib/auth/roles';
 import type { SessionUser } from '@/lib/auth/session-user';
 import { ROLE_LABELS } from '@/lib/validation/enums';
@@ -22,6 +23,9 @@ export function AppNav({ user }: { user: SessionUser }) {
             <span className="text-rule-light"> · </span>
             <span data-testid="user-role">{ROLE_LABELS[user.role]}</span>
           </p>
+          <Link href="/change-password" className="inline-flex min-h-target items-center text-sm font-bold text-white underline underline-offset-4">
+            Password
+          </Link>
           <SignOutButton />
         </div>
       </div>
