@@ -23,6 +23,9 @@ export interface EstimateQueueOptions {
   log?: (message: string, error?: unknown) => void;
 }
 
+/** How long a worker thread beyond the first may wait for its next estimate before it ends. */
+export const IDLE_THREAD_MS = 60_000;
+
 interface Running {
   claimed: ClaimedEstimate;
   abort: AbortController;
@@ -73,16 +76,15 @@ export class EstimateQueue {
     this.pool = new Piscina({
       filename: options.workerFile,
       maxThreads: this.poolSize,
-      // one thread stays started, with the engine and its WebAssembly loaded, so an estimate
-      // does not wait for a thread to start; more threads are given back after a minute idle
+      // One thread stays started: its engine code is loaded and compiled (WebAssembly, and
+      // the JIT's work on the hot loops, which made later estimates of the 1,000,000-line
+      // nest up to 40% faster than the first in the benchmark). Ending threads does not give
+      // their memory back to the system either: the process keeps freed memory for reuse.
+      // Threads beyond the first end after IDLE_THREAD_MS without work.
       minThreads: 1,
-      idleTimeout: 60_000,
+      idleTimeout: IDLE_THREAD_MS,
       // the task awaits object storage: no thread may be parked between tasks
       atomics: 'disabled',
-      // the young generation a main thread gets on 64-bit Node (3 × 16 MB semi-space, from
-      // memory): a worker's smaller default made the engine's many short-lived objects cost
-      // up to a third more time in scavenges (measured on the 1,000,000-line nest, noisy box)
-      resourceLimits: { maxYoungGenerationSizeMb: 48 },
     });
   }
 

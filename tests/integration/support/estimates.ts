@@ -4,7 +4,7 @@
 // file and profile, and polling an estimate until it ends.
 import { execFile } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
@@ -126,8 +126,20 @@ export interface CliSettings {
   vacuumKpa: number | null;
 }
 
-/** `npm run estimate -- FILE --machine PROFILE.json … --json`, the way a programmer runs it; the parsed output and the wall time. */
-export async function runCli(file: string, profile: unknown, settings: CliSettings): Promise<{ json: unknown; stdout: string; wallMs: number }> {
+function rssOf(pid: number | undefined): number {
+  try {
+    const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
+    return m ? Number(m[1]) * 1024 : 0;
+  } catch {
+    return 0; // ended, or no /proc
+  }
+}
+
+/**
+ * `npm run estimate -- FILE --machine PROFILE.json … --json`, the way a programmer runs it:
+ * the parsed output, the wall time and the process's peak resident memory (sampled, Linux).
+ */
+export async function runCli(file: string, profile: unknown, settings: CliSettings): Promise<{ json: unknown; stdout: string; wallMs: number; peakRssBytes: number }> {
   const dir = mkdtempSync(path.join(os.tmpdir(), 'kerfcast-cli-'));
   try {
     const profileFile = path.join(dir, 'profile.json');
@@ -142,9 +154,16 @@ export async function runCli(file: string, profile: unknown, settings: CliSettin
       '--json',
     ];
     const started = performance.now();
-    const { stdout } = await run(process.execPath, args, { cwd: ROOT, maxBuffer: 512 * 1024 * 1024 });
-    const wallMs = performance.now() - started;
-    return { json: JSON.parse(stdout), stdout, wallMs };
+    const running = run(process.execPath, args, { cwd: ROOT, maxBuffer: 512 * 1024 * 1024 });
+    let peakRssBytes = 0;
+    const sampler = setInterval(() => (peakRssBytes = Math.max(peakRssBytes, rssOf(running.child.pid))), 50);
+    try {
+      const { stdout } = await running;
+      const wallMs = performance.now() - started;
+      return { json: JSON.parse(stdout), stdout, wallMs, peakRssBytes };
+    } finally {
+      clearInterval(sampler);
+    }
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
