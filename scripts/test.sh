@@ -27,6 +27,8 @@ echo "[kerfcast] type check (tsc --noEmit)"
 npx tsc --noEmit
 echo "[kerfcast] production build (next build)"
 npx next build
+# the estimate worker thread's bundle (the server's piscina pool loads it)
+node scripts/build-estimate-worker.mjs
 echo "[kerfcast] tests (vitest run: unit, integration, e2e)"
 set +e
 mkdir -p .data
