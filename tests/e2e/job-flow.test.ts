@@ -119,6 +119,16 @@ describe('a programmer creates a job and uploads its program', () => {
     expect(await job.history()).toEqual(['Priya Created the job.']);
     await page.getByText('No programs yet.').waitFor();
 
+    // edit: the form comes back filled in; the change is named in the history
+    await page.getByRole('link', { name: 'Edit job' }).click();
+    await page.waitForURL(/\/jobs\/\d+\/edit$/);
+    expect(await form.value('Title')).toBe(TITLE);
+    expect(await form.value('Vacuum level (kPa below atmosphere)')).toBe('61');
+    await form.fill({ quantity: '30' });
+    await form.submit();
+    await page.waitForURL(/\/jobs\/\d+$/);
+    expect(await job.history()).toEqual(['Priya Changed quantity.', 'Priya Created the job.']);
+
     // the list finds it by a word of its title
     const list = new JobsPage(page, server.baseUrl);
     await page.goto(`${server.baseUrl}/jobs?q=${encodeURIComponent(TITLE)}`);
@@ -133,24 +143,19 @@ describe('a programmer creates a job and uploads its program', () => {
     await job.open(jobId);
     expect(await job.hasUploadControl()).toBe(true);
 
+    await job.recordUploadRows();
     await job.chooseFiles([FIXTURE]);
     const item = job.uploadItem(PROGRAM);
     await item.locator('progress').waitFor();
-    // the bar and its figure while the file is on its way. The 15.6 KB fixture leaves the
-    // browser in one write on loopback, so the bar is seen full while the server still
-    // streams, hashes and records it, and rarely part way.
-    const seen: { state: string | null; value: number; text: string }[] = [];
-    const deadline = Date.now() + 60_000;
-    while (Date.now() < deadline) {
-      const state = await item.getAttribute('data-state');
-      seen.push({ state, value: await job.uploadProgress(PROGRAM), text: (await item.innerText()).replace(/\s+/g, ' ') });
-      if (state === 'stored' || state === 'failed') break;
-      if (seen.length === 1) await job.uploadWidget().screenshot({ path: path.join(SCREENSHOT_DIR, 'job-upload-progress.png') });
-      await page.waitForTimeout(100);
-    }
+    await job.uploadWidget().screenshot({ path: path.join(SCREENSHOT_DIR, 'job-upload-progress.png') });
+    await item.and(page.locator('[data-state="stored"], [data-state="failed"]')).waitFor({ timeout: 60_000 });
     expect(await item.getAttribute('data-state'), await item.innerText()).toBe('stored');
-    const whileSending = seen.filter((x) => x.state === 'sending');
-    expect(whileSending.length, JSON.stringify(seen)).toBeGreaterThan(0);
+    // every state the row went through: the bar and its figure while the file was on its way.
+    // The 15.6 KB fixture leaves the browser in one write on loopback, so the bar is mostly
+    // seen full ('Storing') while the server streams, hashes and records it.
+    const rows = await job.recordedUploadRows();
+    const whileSending = rows.filter((x) => x.state === 'sending');
+    expect(whileSending.length, JSON.stringify(rows)).toBeGreaterThan(0);
     for (const x of whileSending) expect(x.text).toMatch(/(Sending|Storing): shelf-brackets-birch-18mm\.nc.* of 15\.2 KiB · \d+ %/);
     expect(await job.uploadProgress(PROGRAM)).toBe(1);
     expect(await item.innerText()).toContain('15.2 KiB of 15.2 KiB · 100 %');

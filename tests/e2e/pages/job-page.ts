@@ -56,6 +56,31 @@ export class JobPage {
     return this.page.getByTestId('upload-item').filter({ hasText: name });
   }
 
+  /**
+   * Starts recording every state the upload rows go through (a MutationObserver on the widget),
+   * so a quick upload's short 'sending' moment is not missed between two looks.
+   */
+  async recordUploadRows(): Promise<void> {
+    await this.uploadWidget().evaluate((widget) => {
+      const log: { state: string | null; value: number; text: string }[] = [];
+      (window as unknown as { kerfcastUploadLog: typeof log }).kerfcastUploadLog = log;
+      const take = () => {
+        for (const el of widget.querySelectorAll<HTMLElement>('[data-testid="upload-item"]')) {
+          log.push({
+            state: el.getAttribute('data-state'),
+            value: el.querySelector('progress')?.value ?? 0,
+            text: el.innerText.replace(/\s+/g, ' '),
+          });
+        }
+      };
+      new MutationObserver(take).observe(widget, { subtree: true, childList: true, attributes: true, characterData: true });
+    });
+  }
+
+  async recordedUploadRows(): Promise<{ state: string | null; value: number; text: string }[]> {
+    return this.page.evaluate(() => (window as unknown as { kerfcastUploadLog: { state: string | null; value: number; text: string }[] }).kerfcastUploadLog);
+  }
+
   /** The upload's bar value (0–1) as the page holds it. */
   async uploadProgress(name: string): Promise<number> {
     return this.uploadItem(name).locator('progress').evaluate((el) => (el as HTMLProgressElement).value);
