@@ -1,5 +1,5 @@
 // Local stand-in for the hosted S3 bucket: s3rver on loopback, data in .data/s3, the
-// bucket kerfcast-programs created at start. The app reaches it only through
+// buckets kerfcast-programs (demo) and kerfcast-programs-test (npm test) created at start. The app reaches it only through
 // @aws-sdk/client-s3 (lib/storage/s3.ts), exactly as it reaches the real service. In
 // front of s3rver, scripts/lib/fake-guard.ts refuses what a web page could send:
 // another Host, a browser's request, a form upload, anything unsigned.
@@ -29,7 +29,9 @@ interface S3rverInstance {
 const S3rver = createRequire(__filename)('s3rver') as new (options: S3rverOptions) => S3rverInstance;
 
 const port = portFromEnv('KERFCAST_S3_PORT', 4569);
-const bucket = process.env.S3_BUCKET || 'kerfcast-programs';
+// The demo bucket and the test bucket (scripts/test.sh) both exist whichever script started
+// the fake first, plus S3_BUCKET when it names another.
+const buckets = [...new Set(['kerfcast-programs', 'kerfcast-programs-test', process.env.S3_BUCKET || 'kerfcast-programs'])];
 const directory = path.join(dataDir, 's3');
 fs.mkdirSync(directory, { recursive: true });
 
@@ -38,7 +40,7 @@ const server = new S3rver({
   port,
   directory,
   silent: false,
-  configureBuckets: [{ name: bucket, configs: [] }],
+  configureBuckets: buckets.map((name) => ({ name, configs: [] })),
 });
 
 // s3rver extends Koa and serves callback()'s handler: the guard goes in front of it.
@@ -57,7 +59,7 @@ server
   .run()
   .then(() => {
     writePidFile('s3-fake', () => server.close());
-    console.log(`s3-fake: listening on http://127.0.0.1:${port}, bucket ${bucket}, data ${directory}`);
+    console.log(`s3-fake: listening on http://127.0.0.1:${port}, buckets ${buckets.join(', ')}, data ${directory}`);
   })
   .catch((err: unknown) => {
     console.error('s3-fake: could not start:', err);

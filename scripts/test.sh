@@ -21,6 +21,9 @@ bash scripts/services-start.sh
 # The install's database password, made by services-start.sh (.data/db-password).
 db_password="$(tr -dc 'A-Za-z0-9' <"${KERFCAST_DATA_DIR:-.data}/db-password" 2>/dev/null || true)"
 export DATABASE_URL="${TEST_DATABASE_URL:-mysql://kerfcast:${db_password:-kerfcast}@127.0.0.1:$KERFCAST_DB_PORT/kerfcast_test}"
+# The test database has its own bucket too: its shop and estimate ids start at 1 like the
+# demo database's, so sharing one bucket would let a test overwrite a demo program's objects.
+export S3_BUCKET="${TEST_S3_BUCKET:-kerfcast-programs-test}"
 npx tsx db/migrate.ts
 npx tsx db/seed.ts >/dev/null
 echo "[kerfcast] type check (tsc --noEmit)"

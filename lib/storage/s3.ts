@@ -83,7 +83,7 @@ export async function deleteObject(key: string, bucket: string = env.S3_BUCKET):
   await client().send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
 }
 
-/** Creates the bucket when it is missing (the fake creates kerfcast-programs itself). */
+/** Creates the bucket when it is missing (the local fake creates the demo and test buckets itself). */
 export async function ensureBucket(bucket: string = env.S3_BUCKET): Promise<void> {
   try {
     await client().send(new HeadBucketCommand({ Bucket: bucket }));
