@@ -10,11 +10,10 @@
 import type { CutGraph } from '../graph/cut-graph';
 import type { GraphLoop } from '../graph/faces';
 import { reverseRing, ringAreaMm2, ringPerimeterMm, SCALE, toRing, type GridBox, type Ring } from '../geometry/polygons';
-import { hashEnd, hashMix, hashStart, ScratchKey, ShapeCache } from './shape-cache';
+import { hashKey, ScratchKey, ShapeCache } from './shape-cache';
 
-// module-level copies: an imported binding is read through an accessor on every use in the hot loops
+// a module-level copy: an imported binding is read through an accessor on every use in the hot loops
 const GRID = SCALE;
-const mix = hashMix;
 
 /** an outline shared by congruent copies (compared by identity) */
 export interface LoopShape {
@@ -74,8 +73,6 @@ export class LoopShapes {
     const { verts, edges, start: first, length: n } = loop;
     const key = this.scratch.data(6 * n);
     const vx = g.vx, vy = g.vy, eArc = g.eArc, aR = g.arcs.r, aSweep = g.arcs.sweep, aCx = g.arcs.cx, aCy = g.arcs.cy, eu = g.eu;
-    // the hash over the whole numbers of the vertices and radii (the rest is compared on a hit)
-    let h = hashStart(n);
     for (let c = 0, i = s, o = 0; c < n; c++, i = i + 1 === n ? 0 : i + 1, o += 6) {
       const v = verts[first + i], e = edges[first + i];
       const dx = Math.round(vx[v] * GRID) - ox, dy = Math.round(vy[v] * GRID) - oy;
@@ -95,9 +92,9 @@ export class LoopShapes {
         key[o + 5] = 0;
       }
       key[o + 2] = r;
-      h = mix(mix(mix(h, dx), dy), r);
     }
-    this.hash = hashEnd(h);
+    // the hash over the vertex offsets and radii (the rest is compared on a hit)
+    this.hash = hashKey(key, 6, 3, 1);
     return key;
   }
 }

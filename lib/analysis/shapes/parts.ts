@@ -10,7 +10,7 @@ import { differencePaths, gridBoxMm, isConvex, offsetPaths, pathInside, pathPeri
 import { freedPieceHeld, freedPieceHold } from '../checks/hold';
 import type { LoopNode } from './nesting';
 import type { LoopShape } from './loop-shapes';
-import { hashNumbers, ScratchKey, ShapeCache, translatePath, type ShapeKey } from './shape-cache';
+import { hashKey, ScratchKey, ShapeCache, translatePath, type ShapeKey } from './shape-cache';
 import type { AnalysisSettings } from '../settings';
 import type { AnalysisPart, BBox, HoldDownMethod } from '../types';
 
@@ -136,7 +136,7 @@ export class PartShapes {
       data[o++] = h.oy - outer.oy;
       data[o++] = h.radiusMm;
     }
-    return this.scratch.key(hashNumbers(data), data, outer.ox, outer.oy);
+    return this.scratch.key(hashKey(data, 1, 1, 1e6), data, outer.ox, outer.oy);
   }
 
   part(node: LoopNode, holeNodes: LoopNode[]): PlacedShape {
