@@ -212,3 +212,33 @@ async function discardKeys(keys: string[]): Promise<void> {
 export function discardReceived(received: ReceiveResult): Promise<void> {
   return discardKeys(received.programs.map((p) => p.objectKey));
 }
+
+/** How much of an unread body a refusal before the upload reads away, so the client sees the answer. */
+export const REFUSAL_DRAIN_BYTES = 1024 * 1024;
+
+/**
+ * After a refusal that came before the body was read (signed out, wrong role, no such job):
+ * reads and drops the body when it is small, so the client, still sending, gets the answer
+ * instead of a broken pipe and the connection can be reused. True when the body was read
+ * to its end; false when it is larger than `limitBytes` (the caller then closes the connection).
+ */
+export async function drainUnreadBody(request: Request, limitBytes: number = REFUSAL_DRAIN_BYTES): Promise<boolean> {
+  if (!request.body || request.bodyUsed) return !request.body;
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  if (Number.isFinite(declared) && declared > limitBytes) return false;
+  const reader = request.body.getReader();
+  let seen = 0;
+  try {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) return true;
+      seen += value.byteLength;
+      if (seen > limitBytes) {
+        await reader.cancel().catch(() => undefined);
+        return false;
+      }
+    }
+  } catch {
+    return false;
+  }
+}

@@ -43,11 +43,17 @@ export function s3Refusal(req: FakeRequest, port: number): string | null {
   const refusal = mailApiRefusal(req, port);
   if (refusal) return refusal;
   const type = String(req.headers['content-type'] ?? '').split(';')[0].trim().toLowerCase();
-  if ((req.method ?? 'GET').toUpperCase() === 'POST' && FORM_TYPES.includes(type)) return 'form uploads are not served';
-  if (['GET', 'HEAD'].includes((req.method ?? 'GET').toUpperCase())) return null;
   const auth = String(req.headers.authorization ?? '');
+  const headerSigned = /^(AWS4-HMAC-SHA256|AWS) \S/.test(auth);
+  // No S3 call the app makes posts a form body, so those two types are always refused. A
+  // text/plain POST is the SDK's own when it carries an Authorization header, which a form
+  // cannot: CreateMultipartUpload names the object's type (text/plain for a program). A form
+  // may carry a query signature, and the fake's keys are public, so that does not count.
+  const post = (req.method ?? 'GET').toUpperCase() === 'POST';
+  if (post && FORM_TYPES.includes(type) && (type !== 'text/plain' || !headerSigned)) return 'form uploads are not served';
+  if (['GET', 'HEAD'].includes((req.method ?? 'GET').toUpperCase())) return null;
   const query = new URL(req.url ?? '/', 'http://fake.invalid').searchParams;
-  const signed = /^(AWS4-HMAC-SHA256|AWS) \S/.test(auth) || query.has('X-Amz-Signature') || query.has('Signature');
+  const signed = headerSigned || query.has('X-Amz-Signature') || query.has('Signature');
   if (!signed) return 'unsigned writes are not served';
   return null;
 }

@@ -11,6 +11,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { Upload } from '@aws-sdk/lib-storage';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 const ROOT = path.resolve(__dirname, '../..');
@@ -78,6 +79,13 @@ describe('S3 fake (ASVS V14.1)', () => {
     const got = await s3.send(new GetObjectCommand({ Bucket: BUCKET, Key: 'guard/ok.nc' }));
     expect(await got.Body?.transformToString()).toBe('G0 X0\n');
     await s3.send(new DeleteObjectCommand({ Bucket: BUCKET, Key: 'guard/ok.nc' }));
+    // a multipart upload of a program as the upload route sends it: CreateMultipartUpload is
+    // a signed POST naming text/plain, which the form-post refusal must let through
+    const big = Buffer.alloc(6 * 1024 * 1024, 'G1 X1 Y1\n');
+    await new Upload({ client: s3, params: { Bucket: BUCKET, Key: 'guard/big.nc', Body: big, ContentType: 'text/plain; charset=utf-8' }, partSize: 5 * 1024 * 1024 }).done();
+    const back = await s3.send(new GetObjectCommand({ Bucket: BUCKET, Key: 'guard/big.nc' }));
+    expect((await back.Body?.transformToByteArray())?.length).toBe(big.length);
+    await s3.send(new DeleteObjectCommand({ Bucket: BUCKET, Key: 'guard/big.nc' }));
     s3.destroy();
   });
 
@@ -93,6 +101,9 @@ describe('S3 fake (ASVS V14.1)', () => {
     expect(posted.status).toBe(403);
     const signedLooking = await raw(s3Port, 'POST', `/${BUCKET}`, { 'content-type': 'multipart/form-data; boundary=b', authorization: 'AWS4-HMAC-SHA256 Credential=S3RVER/x' }, form);
     expect(signedLooking.status).toBe(403);
+    // a text/plain form post (no Authorization header: a form cannot send one) is refused too
+    const plain = await raw(s3Port, 'POST', `/${BUCKET}/guard/plain.nc?uploads=`, { 'content-type': 'text/plain' }, 'M30');
+    expect(plain.status).toBe(403);
   });
 
   it('refuses a Host that is not its loopback address and port (DNS rebinding)', async () => {

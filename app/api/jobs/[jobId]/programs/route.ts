@@ -13,7 +13,7 @@ import { env } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 import { wakeEstimateQueue } from '@/lib/estimate-server';
 import { errorResponse, handle, json, refuseCrossSiteWrite } from '@/lib/http/route';
-import { discardReceived, receivePrograms, type ReceiveResult, type ReceiveState } from '@/lib/programs/upload';
+import { discardReceived, drainUnreadBody, receivePrograms, type ReceiveResult, type ReceiveState } from '@/lib/programs/upload';
 import { parseId } from '@/lib/validation/ids';
 
 type Context = { params: Promise<{ jobId: string }> };
@@ -44,6 +44,9 @@ export async function POST(request: Request, { params }: Context) {
   } catch (error) {
     // the files are in storage but their rows are not: take the files out again
     if (received) await discardReceived(received);
+    // refused before the upload began (signed out, role, job): a small body is read away so
+    // the client, still sending, gets this answer rather than a broken pipe
+    if (!state.bodyComplete && !request.bodyUsed) state.bodyComplete = await drainUnreadBody(request);
     const response = errorResponse(error);
     // an answer before the end of the body: the rest is left unread on the socket, so the
     // connection is closed rather than reused (RFC 9112 §9.6)
