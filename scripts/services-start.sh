@@ -15,9 +15,19 @@ mkdir -p "$PIDS" "$LOGS" "$RUN" "$DATA/s3" "$DATA/mail" "$DATA/tmp"
 
 # One start at a time: two terminals (or a test run beside `npm start`) must not both
 # decide a service is down and start it twice. Every daemon is launched from a subshell
-# that first closes fd 9 (`exec 9>&-`), then becomes the daemon: a service, or a shell
+# that first closes fd 9 and every other inherited descriptor, then becomes the daemon: a service, or a shell
 # waiting on it, that kept fd 9 would hold the lock for its whole life, and the next run
 # would wait for it in vain.
+# The same goes for any descriptor the caller left open (a CI runner's or a test wrapper's
+# own `flock` lock): close_inherited_fds drops everything above stderr before the exec.
+close_inherited_fds() {
+  local fd
+  for fd in /proc/$BASHPID/fd/*; do
+    fd=${fd##*/}
+    [[ $fd =~ ^[0-9]+$ ]] && ((fd > 2)) && eval "exec $fd>&-" 2>/dev/null
+  done
+  return 0
+}
 if command -v flock >/dev/null 2>&1; then
   exec 9>"$DATA/services.lock"
   flock -w 120 9 || die "another services-start.sh has held $DATA/services.lock for 120 s"
@@ -60,7 +70,7 @@ start_mariadb() {
   # --user is required by mariadbd when it runs as root and harmless otherwise.
   # A subshell that drops the lock and then becomes mariadbd, so $! is the server's pid.
   (
-    exec 9>&-
+    close_inherited_fds
     exec setsid "$mariadbd" --no-defaults \
       --datadir="$DATA/mariadb" --socket="$DB_SOCKET" --pid-file="$PIDS/mariadb.pid" \
       --bind-address=127.0.0.1 --port="$KERFCAST_DB_PORT" --user="$(id -un)" \
@@ -140,7 +150,7 @@ start_node() {
   done
   log "starting $name on 127.0.0.1:$*"
   (
-    exec 9>&-
+    close_inherited_fds
     cd "$ROOT" || exit 1
     exec setsid node --import tsx "scripts/$script" </dev/null >>"$logfile" 2>&1
   ) &

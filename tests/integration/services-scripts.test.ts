@@ -22,13 +22,15 @@ interface Run { code: number | null; output: string; elapsedMs: number }
 
 /** Runs a script; resolves when it exits (not when every pipe closes, so a daemon that
  * kept our stdout cannot hang the test) or is killed at PROMPT_MS. */
-function runScript(script: string, env: Record<string, string>): Promise<Run> {
+function runScript(script: string, env: Record<string, string>, inheritedFd?: number): Promise<Run> {
   const started = Date.now();
   const base = Object.fromEntries(Object.entries(process.env).filter(([k]) => !SERVICE_ENV_KEYS.includes(k))) as NodeJS.ProcessEnv;
-  const child = spawn('bash', [path.join(ROOT, 'scripts', script)], { cwd: ROOT, env: { ...base, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+  // inheritedFd: an open file the script gets as fd 3, as a caller's `flock FILE cmd` passes its lock
+  const stdio: ('ignore' | 'pipe' | number)[] = inheritedFd === undefined ? ['ignore', 'pipe', 'pipe'] : ['ignore', 'pipe', 'pipe', inheritedFd];
+  const child = spawn('bash', [path.join(ROOT, 'scripts', script)], { cwd: ROOT, env: { ...base, ...env }, stdio });
   let output = '';
-  child.stdout.on('data', (d: Buffer) => (output += d.toString()));
-  child.stderr.on('data', (d: Buffer) => (output += d.toString()));
+  child.stdout?.on('data', (d: Buffer) => (output += d.toString()));
+  child.stderr?.on('data', (d: Buffer) => (output += d.toString()));
   const timer = setTimeout(() => child.kill('SIGKILL'), PROMPT_MS);
   return new Promise((resolve) => {
     child.on('exit', (code) => {
@@ -151,12 +153,18 @@ describe('a second set of the fakes in a scratch folder, ports from the environm
   });
 
   it('starts both fakes on the given ports with their state in the given folder', { timeout: PROMPT_MS + 10_000 }, async () => {
-    const run = await runScript('services-start.sh', env);
+    // started the way `flock FILE npm test` starts it: with the caller's lock open as fd 3
+    const callerLock = path.join(scratch, 'caller.lock');
+    const callerFd = fs.openSync(callerLock, 'w');
+    const run = await runScript('services-start.sh', env, callerFd);
+    fs.closeSync(callerFd);
     expect(run.code, run.output).toBe(0);
     expect(run.elapsedMs).toBeLessThan(PROMPT_MS);
 
     const pids = readPids(path.join(scratch, 'pids'));
     expect(Object.keys(pids).sort()).toEqual(['s3-fake', 'smtp-fake']);
+    // no daemon keeps the caller's descriptor, so the caller's lock ends with the caller
+    for (const pid of Object.values(pids)) expect(lockFds(pid, callerLock)).toEqual([]);
     expect(pids['s3-fake']).not.toBe(bystander.pid); // the stale file was replaced, not trusted
     expect(cmdline(pids['s3-fake'])).toContain('scripts/s3-fake.ts');
     expect(cmdline(pids['smtp-fake'])).toContain('scripts/smtp-fake.ts');
