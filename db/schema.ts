@@ -107,6 +107,8 @@ export const machines = mysqlTable(
     timeFactor: double('time_factor').notNull().default(1),
     hourlyRateMinor: int('hourly_rate_minor').notNull().default(0),
     defaultHoldDown: mysqlEnum('default_hold_down', HOLD_DOWNS).notNull().default('vacuum'),
+    /** the level (kPa below atmosphere) this machine's vacuum table holds; prefills a vacuum job's level; null: not known */
+    defaultVacuumKpa: double('default_vacuum_kpa'),
     /** set instead of deleting a machine that estimates or jobs refer to */
     archivedAt: timestamp('archived_at'),
     createdAt: created(),

@@ -18,12 +18,15 @@ export const demoMachines: {
   fixture: string;
   hourlyRateMinor: number;
   defaultHoldDown: (typeof HOLD_DOWNS)[number];
+  /** invented demo value: what Router 1's table holds under a covered sheet */
+  defaultVacuumKpa: number | null;
   toolDescriptions: Record<number, string>;
 }[] = [
   {
     fixture: 'router-1.json',
     hourlyRateMinor: 9500,
     defaultHoldDown: 'vacuum',
+    defaultVacuumKpa: 61,
     toolDescriptions: {
       1: '1/4 in compression spiral, plywood profiles',
       2: '1/8 in single-flute upcut, acrylic',
@@ -35,6 +38,7 @@ export const demoMachines: {
     fixture: 'router-2.json',
     hourlyRateMinor: 7000,
     defaultHoldDown: 'clamps',
+    defaultVacuumKpa: null,
     toolDescriptions: {
       1: '1/4 in upcut spiral, HDPE',
       2: '1/8 in downcut spiral',

@@ -57,8 +57,10 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
     for (const m of profiles) {
       await tx
         .insert(machines)
-        .values({ ...profileToMachineColumns(m.profile), shopId, hourlyRateMinor: m.hourlyRateMinor, defaultHoldDown: m.defaultHoldDown })
-        .onDuplicateKeyUpdate(keep);
+        .values({ ...profileToMachineColumns(m.profile), shopId, hourlyRateMinor: m.hourlyRateMinor, defaultHoldDown: m.defaultHoldDown, defaultVacuumKpa: m.defaultVacuumKpa })
+        // an existing demo machine keeps its edits; a vacuum level it never had (the column
+        // came with migration 0004) is filled in
+        .onDuplicateKeyUpdate({ set: { defaultVacuumKpa: sql`COALESCE(${machines.defaultVacuumKpa}, VALUES(${machines.defaultVacuumKpa}))` } });
       const [row] = await tx.select().from(machines).where(and(eq(machines.shopId, shopId), eq(machines.name, m.profile.name)));
       for (const t of m.profile.tools) {
         await tx

@@ -11,7 +11,7 @@ import { ActionNotice } from '@/components/ui/notice';
 import { useValidatedAction } from '@/components/ui/use-validated-action';
 import type { JobFormOptions } from '@/db/queries/jobs';
 import type { ActionState } from '@/lib/http/action-state';
-import type { JobFormValues } from '@/lib/jobs/form-values';
+import { machineVacuumKpa, type JobFormValues } from '@/lib/jobs/form-values';
 import { HOLD_DOWN_LABELS, HOLD_DOWNS, type HoldDown, type ZZero } from '@/lib/validation/enums';
 import { jobCreateSchema } from '@/lib/validation/jobs';
 
@@ -62,7 +62,7 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
   function chooseMachine(id: string) {
     const machine = options.machines.find((m) => String(m.id) === id);
     if (!machine) return set({ machineId: id });
-    set({ machineId: id, holdDown: machine.defaultHoldDown, vacuumKpa: machine.defaultHoldDown === 'vacuum' ? num(machine.lastVacuumKpa) : '' });
+    set({ machineId: id, holdDown: machine.defaultHoldDown, vacuumKpa: machine.defaultHoldDown === 'vacuum' ? num(machineVacuumKpa(machine)) : '' });
   }
 
   const vacuum = values.holdDown === 'vacuum';
@@ -140,7 +140,7 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           name="holdDown"
           label="Hold-down method"
           value={values.holdDown}
-          onChange={(e) => set({ holdDown: e.target.value as HoldDown, vacuumKpa: e.target.value === 'vacuum' ? values.vacuumKpa || num(machine?.lastVacuumKpa) : '' })}
+          onChange={(e) => set({ holdDown: e.target.value as HoldDown, vacuumKpa: e.target.value === 'vacuum' ? values.vacuumKpa || num(machineVacuumKpa(machine)) : '' })}
           errors={errorsOf('holdDown')}
           hint={machine ? `${machine.name} usually uses: ${HOLD_DOWN_LABELS[machine.defaultHoldDown].toLowerCase()}.` : undefined}
           options={HOLD_DOWNS.map((h) => ({ value: h, label: HOLD_DOWN_LABELS[h] }))}
@@ -154,7 +154,7 @@ export function JobForm({ mode, jobId, options, initial, action }: Props) {
           value={vacuum ? values.vacuumKpa : ''}
           onChange={(e) => set({ vacuumKpa: e.target.value })}
           errors={errorsOf('vacuumKpa')}
-          hint={vacuum ? (machine?.lastVacuumKpa ? `The level last used on ${machine.name}; change it if the gauge reads otherwise.` : 'Read it off the gauge; optional.') : 'Only for vacuum hold-down.'}
+          hint={vacuum ? (machine?.defaultVacuumKpa ? `The level ${machine.name}'s table holds; change it if the gauge reads otherwise.` : machine?.lastVacuumKpa ? `The level last used on ${machine.name}; change it if the gauge reads otherwise.` : 'Read it off the gauge; optional.') : 'Only for vacuum hold-down.'}
         />
       </fieldset>
 

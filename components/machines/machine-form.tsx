@@ -34,6 +34,7 @@ export interface MachineFormValues {
   /** flat profile values in mm (profileToFlat), empty for a new machine */
   flat: Record<string, number | string>;
   hourlyRateMinor: number | null;
+  defaultVacuumKpa: number | null;
   defaultHoldDown: HoldDown;
 }
 
@@ -144,6 +145,7 @@ export function MachineForm({ machineId, unit, currency, initial, tools, action 
     for (const [key, value] of Object.entries(flat)) if (value !== undefined) out.set(key, value);
     if (rate.ok) out.set('hourlyRateMinor', String(rate.minor));
     out.set('defaultHoldDown', text('defaultHoldDown'));
+    out.set('defaultVacuumKpa', text('defaultVacuumKpa'));
     return { ok: true, form: out };
   }
 
@@ -161,7 +163,7 @@ export function MachineForm({ machineId, unit, currency, initial, tools, action 
       ) : null}
       <section className="flex flex-col gap-4 rounded-md border-2 border-rule bg-panel p-5" aria-labelledby="machine-group-general">
         <h2 id="machine-group-general">Machine</h2>
-        <div className="grid gap-4 md:grid-cols-3">
+        <div className="grid gap-4 md:grid-cols-2">
           <InputField id={idOf('name')} name="name" label="Name" hint={NAME_FIELD.explanation} defaultValue={start.name} required errors={fields.name} autoComplete="off" />
           <InputField
             id="machine-hourly-rate"
@@ -181,6 +183,16 @@ export function MachineForm({ machineId, unit, currency, initial, tools, action 
             defaultValue={initial.defaultHoldDown}
             options={HOLD_DOWNS.map((h) => ({ value: h, label: HOLD_DOWN_LABELS[h] }))}
             errors={fields.defaultHoldDown}
+          />
+          <InputField
+            id="machine-default-vacuum"
+            name="defaultVacuumKpa"
+            label="Vacuum level (kPa)"
+            hint="What the pump holds under a covered sheet on this table; a vacuum job starts from it. Empty: no vacuum table, or not measured."
+            defaultValue={initial.defaultVacuumKpa === null ? '' : String(initial.defaultVacuumKpa)}
+            inputMode="decimal"
+            className="figure text-right"
+            errors={fields.defaultVacuumKpa}
           />
         </div>
       </section>

@@ -112,20 +112,20 @@ export async function getJob(shopId: number, jobId: number): Promise<JobRow | nu
 export interface JobFormOptions {
   customers: { id: number; name: string }[];
   /** machines a job can be planned on: the unarchived ones, the first one first (the default) */
-  machines: { id: number; name: string; defaultHoldDown: Job['holdDown']; lastVacuumKpa: number | null; archived: boolean }[];
+  machines: { id: number; name: string; defaultHoldDown: Job['holdDown']; defaultVacuumKpa: number | null; lastVacuumKpa: number | null; archived: boolean }[];
   materials: { id: number; name: string; thicknessMm: number; sheetWidthMm: number; sheetLengthMm: number }[];
 }
 
 /**
- * What the create and edit forms offer. The machine profile has no vacuum level of its own;
- * the form prefills the level last used on that machine's vacuum jobs, which is what the
- * shop's pump and table reached there.
+ * What the create and edit forms offer. A vacuum job's level is prefilled from the machine's
+ * own vacuum level; where the machine has none, from the level last used on its vacuum jobs
+ * (what the shop's pump and table reached there).
  */
 export async function jobFormOptions(shopId: number, keepMachineId?: number | null): Promise<JobFormOptions> {
   const [customerRows, machineRows, materialRows, vacuumRows] = await Promise.all([
     db.select({ id: customers.id, name: customers.name }).from(customers).where(eq(customers.shopId, shopId)).orderBy(asc(customers.name)),
     db
-      .select({ id: machines.id, name: machines.name, defaultHoldDown: machines.defaultHoldDown, archivedAt: machines.archivedAt })
+      .select({ id: machines.id, name: machines.name, defaultHoldDown: machines.defaultHoldDown, defaultVacuumKpa: machines.defaultVacuumKpa, archivedAt: machines.archivedAt })
       .from(machines)
       .where(eq(machines.shopId, shopId))
       .orderBy(asc(machines.id)),
@@ -148,7 +148,7 @@ export async function jobFormOptions(shopId: number, keepMachineId?: number | nu
     // an archived machine is offered only to the job already planned on it
     machines: machineRows
       .filter((m) => m.archivedAt === null || m.id === keepMachineId)
-      .map((m) => ({ id: m.id, name: m.name, defaultHoldDown: m.defaultHoldDown, lastVacuumKpa: lastVacuum.get(m.id) ?? null, archived: m.archivedAt !== null })),
+      .map((m) => ({ id: m.id, name: m.name, defaultHoldDown: m.defaultHoldDown, defaultVacuumKpa: m.defaultVacuumKpa, lastVacuumKpa: lastVacuum.get(m.id) ?? null, archived: m.archivedAt !== null })),
     materials: materialRows,
   };
 }

@@ -101,11 +101,11 @@ async function saved(shopId: number, machineId: number, version: number, changes
  * only be restored (archived: false), not edited.
  */
 export async function updateMachine(shopId: number, machineId: number, patch: MachinePatch): Promise<MachineSaved> {
-  const { hourlyRateMinor, defaultHoldDown, archived, ...profilePatch } = patch;
+  const { hourlyRateMinor, defaultHoldDown, defaultVacuumKpa, archived, ...profilePatch } = patch;
   const result = await db
     .transaction(async (tx) => {
       const locked = await lockMachine(tx, shopId, machineId);
-      const editing = Object.keys(profilePatch).length > 0 || hourlyRateMinor !== undefined || defaultHoldDown !== undefined;
+      const editing = Object.keys(profilePatch).length > 0 || hourlyRateMinor !== undefined || defaultHoldDown !== undefined || defaultVacuumKpa !== undefined;
       if (archived === false && locked.machine.archivedAt) {
         await tx.update(machines).set({ archivedAt: null }).where(eq(machines.id, machineId));
         locked.machine = { ...locked.machine, archivedAt: null };
@@ -115,6 +115,7 @@ export async function updateMachine(shopId: number, machineId: number, patch: Ma
       const settings = {
         ...(hourlyRateMinor !== undefined ? { hourlyRateMinor } : {}),
         ...(defaultHoldDown !== undefined ? { defaultHoldDown } : {}),
+        ...(defaultVacuumKpa !== undefined ? { defaultVacuumKpa } : {}),
       };
       const { name, ...columns } = profileToMachineColumns(merged);
       await tx

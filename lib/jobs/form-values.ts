@@ -24,6 +24,11 @@ export interface JobFormValues {
 // the stored value exactly: a prefilled 3.175 mm must not become 3.18
 const num = (v: number | null | undefined) => (v === null || v === undefined ? '' : String(v));
 
+/** The vacuum level a job on this machine starts from: the machine's own, else the level its last vacuum job used. */
+export function machineVacuumKpa(machine: Pick<JobFormOptions['machines'][number], 'defaultVacuumKpa' | 'lastVacuumKpa'> | undefined): number | null {
+  return machine?.defaultVacuumKpa ?? machine?.lastVacuumKpa ?? null;
+}
+
 export function newJobValues(options: JobFormOptions): JobFormValues {
   const machine = options.machines.find((m) => !m.archived);
   const hold = machine?.defaultHoldDown ?? 'vacuum';
@@ -37,7 +42,7 @@ export function newJobValues(options: JobFormOptions): JobFormValues {
     sheetThicknessMm: '',
     zZero: 'top',
     holdDown: hold,
-    vacuumKpa: hold === 'vacuum' ? num(machine?.lastVacuumKpa) : '',
+    vacuumKpa: hold === 'vacuum' ? num(machineVacuumKpa(machine)) : '',
     quantity: '1',
     dueDate: '',
     notes: '',

@@ -6,7 +6,7 @@ import { z } from '@/lib/validation/zod';
 import { HOLD_DOWNS, JOB_STATUSES, Z_ZEROS } from './enums';
 import { dueDateSchema } from './dates';
 
-const ATMOSPHERE_KPA = 101.325;
+export const ATMOSPHERE_KPA = 101.325;
 // The largest common sheet is 5 × 10 ft (1524 × 3048 mm, common practice); 6 m leaves
 // room for oversize panels while catching a value typed in the wrong unit.
 const MAX_SHEET_MM = 6000;

@@ -1,12 +1,13 @@
 // Input of the machines, tools and shop-setting routes and forms. The profile itself is
 // judged by the CLI's schema (lib/validation/machine-profile.ts), so a form, the JSON API
 // and PROFILE.json accept exactly the same machines; this module adds what a machine row
-// has beyond its profile (hourly rate, default hold-down), the tool's description, the
+// has beyond its profile (hourly rate, default hold-down and vacuum level), the tool's description, the
 // partial update, and turns the schema's issues into sentences about each field.
 import { z } from '@/lib/validation/zod';
 import { AppError, type FieldErrors } from '@/lib/errors';
 import { fieldSentence } from '@/lib/machines/profile-fields';
 import { HOLD_DOWNS } from './enums';
+import { ATMOSPHERE_KPA } from './jobs';
 import { machineProfileSchema, toolSchema, type MachineProfile, type MachineTool } from './machine-profile';
 import { LENGTH_UNITS } from '@/lib/units/length';
 
@@ -19,6 +20,12 @@ export const machineSettingsShape = {
     .min(0, 'The hourly rate must be 0 or more.')
     .max(INT_MAX, 'The hourly rate is too large.'),
   defaultHoldDown: z.enum(HOLD_DOWNS, { error: 'Choose a hold-down method.' }),
+  // what the pump holds under a covered sheet; null when the machine has no vacuum table or it was never measured
+  defaultVacuumKpa: z
+    .number({ error: 'Enter the vacuum level in kPa, or leave it empty.' })
+    .gt(0, 'The vacuum level must be more than 0 kPa.')
+    .max(ATMOSPHERE_KPA, `The vacuum level cannot exceed one atmosphere (${ATMOSPHERE_KPA} kPa).`)
+    .nullable(),
 };
 const machineSettingsSchema = z.object(machineSettingsShape).partial();
 export type MachineSettings = z.infer<typeof machineSettingsSchema>;
@@ -88,7 +95,7 @@ export function parseProfileOrThrow<T extends z.ZodType>(schema: T, input: unkno
 export function parseMachineCreate(body: unknown): { profile: MachineProfile; settings: MachineSettings } {
   const input = typeof body === 'object' && body !== null && !Array.isArray(body) ? (body as Record<string, unknown>) : {};
   const profile = machineProfileSchema.safeParse({ tools: [], ...input });
-  const settings = machineSettingsSchema.safeParse({ hourlyRateMinor: input.hourlyRateMinor, defaultHoldDown: input.defaultHoldDown });
+  const settings = machineSettingsSchema.safeParse({ hourlyRateMinor: input.hourlyRateMinor, defaultHoldDown: input.defaultHoldDown, defaultVacuumKpa: input.defaultVacuumKpa });
   if (profile.success && settings.success) return { profile: profile.data, settings: settings.data };
   const fields = {
     ...(profile.success ? {} : profileFieldErrors(profile.error)),

@@ -90,6 +90,8 @@ describe('a programmer creates a job and uploads its program', () => {
     // the shop's first machine, Router 1, and its usual hold-down (db/seed-data.ts: vacuum)
     expect(await form.selectedLabel('Machine')).toBe('Router 1');
     expect(await form.selectedLabel('Hold-down method')).toBe('Vacuum');
+    // and its vacuum level (db/seed-data.ts: Router 1 holds 61 kPa)
+    expect(await form.value('Vacuum level (kPa below atmosphere)')).toBe('61');
 
     // nothing typed: the page names the fields before sending, and the focus goes to the first
     await form.fill({ quantity: '' });

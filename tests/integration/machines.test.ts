@@ -137,6 +137,25 @@ describe('profile versions', () => {
     expect(versions.map((v) => v.version)).toEqual([1]);
   });
 
+  it('the vacuum level a job starts from: set, cleared, refused at 0 and past one atmosphere (101.325 kPa, ISO 2533 standard atmosphere); never a new version', async () => {
+    const machine = await create('Vacuum');
+    const url = `/api/machines/${machine.id}`;
+    const set = await callApi<{ version: number; versioned: boolean }>(jars.priya, 'PATCH', url, { defaultVacuumKpa: 55.5 });
+    expect(set.status).toBe(200);
+    expect(set.body).toMatchObject({ version: 1, versioned: false });
+    expect((await read(machine.id)).machine).toMatchObject({ defaultVacuumKpa: 55.5 });
+    for (const bad of [0, 101.4, 'strong']) {
+      const refused = await callApi<{ error: { code: string; fields: Record<string, string[]> } }>(jars.priya, 'PATCH', url, { defaultVacuumKpa: bad });
+      expect(refused.status, String(bad)).toBe(422);
+      expect(Object.keys(refused.body.error.fields), String(bad)).toEqual(['defaultVacuumKpa']);
+    }
+    expect((await read(machine.id)).machine).toMatchObject({ defaultVacuumKpa: 55.5 });
+    const cleared = await callApi(jars.priya, 'PATCH', url, { defaultVacuumKpa: null });
+    expect(cleared.status).toBe(200);
+    expect((await read(machine.id)).machine).toMatchObject({ defaultVacuumKpa: null });
+    expect((await read(machine.id)).versions.map((v) => v.version)).toEqual([1]);
+  });
+
   it('tools: add, change and remove are new versions; a description alone is not; older snapshots keep the tool', async () => {
     const machine = await create('Tools');
     const added = await callApi<{ tool: { id: number }; version: number }>(jars.priya, 'POST', `/api/machines/${machine.id}/tools`, { number: 9, diameterMm: 3.175, flutes: 1, kind: 'downcut' });

@@ -29,7 +29,9 @@ export async function saveMachineAction(_previous: ActionState, form: FormData):
     const flat = formDataToObject(form);
     const { tools: _none, ...profile } = flatToProfileInput(flat, []);
     void _none;
-    const settings = { hourlyRateMinor: numberOrText(flat.hourlyRateMinor), defaultHoldDown: flat.defaultHoldDown };
+    // an empty vacuum field clears the level (null): the machine has no vacuum table, or it was never measured
+    const vacuum = flat.defaultVacuumKpa === undefined ? undefined : flat.defaultVacuumKpa.trim() === '' ? null : numberOrText(flat.defaultVacuumKpa);
+    const settings = { hourlyRateMinor: numberOrText(flat.hourlyRateMinor), defaultHoldDown: flat.defaultHoldDown, defaultVacuumKpa: vacuum };
     if (!flat.machineId) {
       const input = parseMachineCreate({ ...profile, ...settings });
       const machine = await createMachine(user.shopId, input.profile, input.settings);

@@ -98,6 +98,10 @@ export default async function MachinePage({ params, searchParams }: Props) {
               <dt className="font-bold">Default hold-down</dt>
               <dd>{HOLD_DOWN_LABELS[machine.defaultHoldDown]}</dd>
             </div>
+            <div>
+              <dt className="font-bold">Vacuum level (kPa)</dt>
+              <dd className="figure">{machine.defaultVacuumKpa === null ? 'not given' : machine.defaultVacuumKpa}</dd>
+            </div>
           </dl>
           <ProfileView profile={profile} unit={unit} />
         </section>

@@ -29,7 +29,7 @@ export default async function NewMachinePage() {
       <MachineForm
         unit={shop.lengthUnit}
         currency={shop.currency}
-        initial={{ flat: { 'homeMm.x': 0, 'homeMm.y': 0, 'homeMm.z': 0, timeFactor: 1 }, hourlyRateMinor: null, defaultHoldDown: 'vacuum' }}
+        initial={{ flat: { 'homeMm.x': 0, 'homeMm.y': 0, 'homeMm.z': 0, timeFactor: 1 }, hourlyRateMinor: null, defaultHoldDown: 'vacuum', defaultVacuumKpa: null }}
         tools={[]}
         action={saveMachineAction}
       />

@@ -42,7 +42,7 @@ export default async function EditMachinePage({ params }: { params: Promise<{ ma
           machineId={machine.id}
           unit={shop.lengthUnit}
           currency={shop.currency}
-          initial={{ flat: profileToFlat(profile), hourlyRateMinor: machine.hourlyRateMinor, defaultHoldDown: machine.defaultHoldDown }}
+          initial={{ flat: profileToFlat(profile), hourlyRateMinor: machine.hourlyRateMinor, defaultHoldDown: machine.defaultHoldDown, defaultVacuumKpa: machine.defaultVacuumKpa }}
           tools={profile.tools}
           action={saveMachineAction}
         />

@@ -1,0 +1,1 @@
+ALTER TABLE `machines` ADD `default_vacuum_kpa` double;
