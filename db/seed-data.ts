@@ -73,6 +73,8 @@ export const demoJobs: {
   title: string;
   customer: (typeof demoCustomers)[number]['name'];
   material: (typeof demoMaterials)[number]['name'];
+  /** the demo machine (by name) the job is planned on */
+  machine: 'Router 1' | 'Router 2';
   zZero: (typeof Z_ZEROS)[number];
   holdDown: (typeof HOLD_DOWNS)[number];
   vacuumKpa: number | null;
@@ -83,6 +85,7 @@ export const demoJobs: {
     title: 'Window display shelf brackets',
     customer: 'Marlow Street Bakery',
     material: 'Birch plywood 18 mm',
+    machine: 'Router 1',
     zZero: 'table',
     holdDown: 'vacuum',
     // about 18 inHg, mid-range for a router-shop vacuum table (common practice)
@@ -94,6 +97,7 @@ export const demoJobs: {
     title: 'Shelf-edge price-tag holders',
     customer: 'Hollin Outdoor Gear',
     material: 'Cast acrylic 3 mm',
+    machine: 'Router 1',
     zZero: 'top',
     holdDown: 'tape-glue',
     vacuumKpa: null,
@@ -104,6 +108,7 @@ export const demoJobs: {
     title: 'Cutting-board blanks',
     customer: 'Marlow Street Bakery',
     material: 'HDPE 12 mm',
+    machine: 'Router 2',
     zZero: 'top',
     holdDown: 'tabs',
     vacuumKpa: null,

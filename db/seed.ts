@@ -8,7 +8,7 @@
 // ASVS 4.0.3 V2.10.1, V14.1).
 import path from 'node:path';
 import bcrypt from 'bcryptjs';
-import { and, eq, sql } from 'drizzle-orm';
+import { and, eq, isNull, sql } from 'drizzle-orm';
 import { env, isLoopbackHost, type Env } from '@/lib/env';
 import { db as defaultDb, closeDb, type Db } from './client';
 import { customers, jobs, machineVersions, machines, materials, shops, tools, users } from './schema';
@@ -102,13 +102,22 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
       ),
     );
     const materialRows = await tx.select().from(materials).where(eq(materials.shopId, shopId));
+    const machineIds = new Map(
+      (await tx.select({ id: machines.id, name: machines.name }).from(machines).where(eq(machines.shopId, shopId))).map((m) => [m.name, m.id]),
+    );
     for (const j of demoJobs) {
+      const machineId = machineIds.get(j.machine);
+      if (machineId === undefined) throw new Error(`seed: job "${j.title}" names a missing machine`);
       // Jobs have no natural unique key (titles may repeat), so look before inserting.
       const existing = await tx
         .select({ id: jobs.id })
         .from(jobs)
         .where(and(eq(jobs.shopId, shopId), eq(jobs.title, j.title)));
-      if (existing.length > 0) continue;
+      if (existing.length > 0) {
+        // a demo job seeded before jobs named their machine gets its machine, nothing else changes
+        await tx.update(jobs).set({ machineId }).where(and(eq(jobs.shopId, shopId), eq(jobs.title, j.title), isNull(jobs.machineId)));
+        continue;
+      }
       const material = materialRows.find((m) => m.name === j.material);
       const customerId = customerIds.get(j.customer);
       if (!material || customerId === undefined) throw new Error(`seed: job "${j.title}" names a missing customer or material`);
@@ -125,6 +134,7 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
         vacuumKpa: j.vacuumKpa,
         quantity: j.quantity,
         status: j.status,
+        machineId,
       });
     }
 

@@ -257,3 +257,67 @@ describe('migration 0001 (machine profile names) on a database at 0000', () => {
     expect(profile).toEqual(expected);
   });
 });
+
+// 0005 gives jobs made before jobs named their machine the shop's first machine (issue 12:
+// "a job names its machine … default the shop's first machine"): the unarchived one with the
+// lowest id; a job that names one keeps it; a shop with no machine leaves its jobs without.
+describe('migration 0005 (a machine for every job) on a database at 0004', () => {
+  let scratch: ScratchDatabase;
+  let conn: mysql.Connection;
+  let upTo0004: string;
+
+  beforeAll(async () => {
+    scratch = await createScratchDatabase();
+    conn = await mysql.createConnection({ uri: scratch.url });
+    upTo0004 = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfcast-0004-'));
+    fs.mkdirSync(path.join(upTo0004, 'meta'));
+    const entries = journal.entries.filter((e) => Number(e.tag.slice(0, 4)) <= 4);
+    for (const e of entries) fs.copyFileSync(path.join(migrationsFolder, `${e.tag}.sql`), path.join(upTo0004, `${e.tag}.sql`));
+    fs.writeFileSync(path.join(upTo0004, 'meta', '_journal.json'), JSON.stringify({ ...journal, entries }));
+    await migrate(drizzle(conn), { migrationsFolder: upTo0004 });
+  });
+
+  afterAll(async () => {
+    await conn?.end();
+    await scratch?.drop();
+    if (upTo0004) fs.rmSync(upTo0004, { recursive: true, force: true });
+  });
+
+  it('sets the first unarchived machine of the job\'s own shop, and nothing else', async () => {
+    const machineSql = `INSERT INTO machines (shop_id, name, travel_x_mm, travel_y_mm, travel_z_mm, max_feed_x_mm_per_min, max_feed_y_mm_per_min,
+         max_feed_z_mm_per_min, rapid_x_mm_per_min, rapid_y_mm_per_min, rapid_z_mm_per_min, accel_x_mm_per_s2, accel_y_mm_per_s2,
+         accel_z_mm_per_s2, corner_tolerance_mm, lookahead_blocks, max_blocks_per_s, chord_tolerance_mm, tool_change_s, spindle_spin_up_s, archived_at)
+       VALUES (?, ?, 2500, 1250, 150, 15000, 15000, 5000, 20000, 20000, 8000, 800, 800, 400, 0.015, 32, 450, 0.003, 20, 4, ?)`;
+    const id = async (query: string, params: unknown[]) => ((await conn.query(query, params)) as unknown as [{ insertId: number }])[0].insertId;
+    const shopA = await id("INSERT INTO shops (name, slug) VALUES ('Shop A', 'shop-a')", []);
+    const shopB = await id("INSERT INTO shops (name, slug) VALUES ('Shop B', 'shop-b')", []);
+    const shopC = await id("INSERT INTO shops (name, slug) VALUES ('Shop C', 'shop-c')", []);
+    const archived = await id(machineSql, [shopA, 'Old router', new Date()]);
+    const first = await id(machineSql, [shopA, 'Router A1', null]);
+    const second = await id(machineSql, [shopA, 'Router A2', null]);
+    const other = await id(machineSql, [shopB, 'Router B1', null]);
+    expect(archived).toBeLessThan(first);
+    const job = async (shop: number, title: string, machine: number | null) => {
+      const customer = await id("INSERT INTO customers (shop_id, name, email) VALUES (?, 'Customer', 'c@example.test')", [shop]);
+      return id(
+        `INSERT INTO jobs (shop_id, title, customer_id, sheet_width_mm, sheet_length_mm, sheet_thickness_mm, hold_down, quantity, machine_id)
+         VALUES (?, ?, ?, 1220, 2440, 18, 'vacuum', 1, ?)`,
+        [shop, title, customer, machine],
+      );
+    };
+    const none = await job(shopA, 'no machine yet', null);
+    const named = await job(shopA, 'already on A2', second);
+    const inB = await job(shopB, 'shop B, no machine', null);
+    const inC = await job(shopC, 'shop without machines', null);
+
+    expect(await runMigrations(scratch.url)).toEqual(journal.entries.filter((e) => Number(e.tag.slice(0, 4)) > 4).map((e) => e.tag));
+
+    const [rows] = (await conn.query('SELECT id, machine_id AS machineId FROM jobs ORDER BY id')) as unknown as [{ id: number; machineId: number | null }[]];
+    expect(rows).toEqual([
+      { id: none, machineId: first },
+      { id: named, machineId: second },
+      { id: inB, machineId: other },
+      { id: inC, machineId: null },
+    ]);
+  });
+});
