@@ -13,7 +13,7 @@ import 'server-only';
 // job's current settings.
 import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db } from '@/db/client';
-import { estimates, jobEvents, jobs, machines, programs, programVersions, type EstimateSettingsDoc, type Job } from '@/db/schema';
+import { estimates, jobEvents, jobs, machines, programs, programVersions, type EstimateSettingsDoc, type Job, type Program } from '@/db/schema';
 import { canonicalJson, jobEstimateSettings, requestEstimate, type DbTx } from '@/lib/estimate-server';
 import type { EstimateStatus } from '@/lib/validation/enums';
 
@@ -242,15 +242,16 @@ export async function listJobPrograms(shopId: number, jobId: number): Promise<Pr
   return rows.map(({ program, version }) => {
     const { programId: _p, ...latest } = version;
     return {
-      id: program.id,
-      jobId: program.jobId,
-      name: program.name,
-      latestVersion: program.latestVersion,
-      createdAt: program.createdAt,
-      updatedAt: program.updatedAt,
+      ...programFields(program),
       latest: { ...latest, estimate: latestOf(estimatesFor(hits, program.id, version.sha256, settings), settings) },
     };
   });
+}
+
+/** The program row's own fields as the API answers them (the shop id stays out). */
+function programFields(program: Program) {
+  const { id, jobId, name, latestVersion, createdAt, updatedAt } = program;
+  return { id, jobId, name, latestVersion, createdAt, updatedAt };
 }
 
 /** One program with every version, newest first, each with its estimates; null for no such program. */
@@ -265,12 +266,7 @@ export async function getProgram(shopId: number, programId: number): Promise<Pro
     .orderBy(desc(programVersions.version));
   const hits = await estimatesOfBytes(shopId, versions.map((v) => v.sha256));
   return {
-    id: program.id,
-    jobId: program.jobId,
-    name: program.name,
-    latestVersion: program.latestVersion,
-    createdAt: program.createdAt,
-    updatedAt: program.updatedAt,
+    ...programFields(program),
     versions: versions.map(({ programId: _p, ...v }) => ({ ...v, estimates: estimatesFor(hits, programId, v.sha256, settings).map(strip) })),
   };
 }

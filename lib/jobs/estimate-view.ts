@@ -3,6 +3,7 @@
 // summaries the page shows of it: findings counted by severity, parts by what holds them.
 // Pure, so the summaries are unit-tested without a browser.
 import type { EstimateStatus } from '@/lib/validation/enums';
+import type { EstimateView as ServerEstimateView } from '@/db/queries/estimates';
 
 export interface ReportFindingView {
   kind: string;
@@ -36,19 +37,11 @@ export interface ReportView {
   checks?: { errors?: number; warnings?: number; infos?: number; note?: string; holdDownAssumed?: boolean; suppressed?: Record<string, number> };
 }
 
-export interface EstimateView {
-  id: number;
-  status: EstimateStatus;
-  programId: number;
-  programVersion: number;
-  machineId: number;
-  machineVersion: number;
-  engineVersion: string;
-  computeMs: number | null;
-  progress: number;
-  error?: string | null;
-  report?: ReportView;
-}
+/** GET /api/estimates/:id as the job page reads it: the server's view (db/queries/estimates.ts) with its report. */
+export type EstimateView = Pick<
+  ServerEstimateView,
+  'id' | 'status' | 'programId' | 'programVersion' | 'machineId' | 'machineVersion' | 'engineVersion' | 'computeMs' | 'progress' | 'error'
+> & { report?: ReportView };
 
 /** Poll every 1.5 s while the estimate waits or runs; stop once it is done or failed. */
 export function pollInterval(status: EstimateStatus | undefined): number {

@@ -6,18 +6,11 @@
 // take the good ones down with it, and each file gets its own bar and its own cancel.
 import { isErrorBody } from '@/lib/errors';
 import { checkProgramName } from '@/lib/programs/program-names';
+import type { UploadedProgram } from '@/db/queries/programs';
 import { formatBytes } from './format';
 
-export interface UploadedProgramView {
-  id: number;
-  jobId: number;
-  name: string;
-  version: number;
-  sha256: string;
-  bytes: number;
-  lines: number;
-  estimate: { id: number; status: string } | null;
-}
+/** One program of the upload's 201 answer, as db/queries/programs.ts makes it. */
+export type UploadedProgramView = UploadedProgram;
 
 export type UploadOutcome =
   | { ok: true; programs: UploadedProgramView[] }

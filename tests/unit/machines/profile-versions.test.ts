@@ -134,7 +134,7 @@ describe('machine input', () => {
   it('refuses unknown keys and tools in a PATCH (tools have their own routes)', () => {
     expect(machinePatchSchema.safeParse({ cornerToleranceMm: 0.03 }).success).toBe(true);
     expect(machinePatchSchema.safeParse({ tools: [] }).success).toBe(false);
-    expect(machinePatchSchema.safeParse({ junction: 1 }).success).toBe(false);
+    expect(machinePatchSchema.safeParse({ cornerTolerance: 1 }).success).toBe(false); // an unknown key: the field is named with its unit (cornerToleranceMm)
     expect(machinePatchSchema.safeParse({}).success).toBe(false);
   });
 });
