@@ -115,7 +115,7 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
         .where(and(eq(jobs.shopId, shopId), eq(jobs.title, j.title)));
       if (existing.length > 0) {
         // a demo job seeded before jobs named their machine gets its machine, nothing else changes
-        await tx.update(jobs).set({ machineId }).where(and(eq(jobs.shopId, shopId), eq(jobs.title, j.title), isNull(jobs.machineId)));
+        await tx.update(jobs).set({ machineId, updatedAt: sql`${jobs.updatedAt}` }).where(and(eq(jobs.shopId, shopId), eq(jobs.title, j.title), isNull(jobs.machineId)));
         continue;
       }
       const material = materialRows.find((m) => m.name === j.material);

@@ -310,9 +310,11 @@ describe('migration 0005 (a machine for every job) on a database at 0004', () =>
     const inB = await job(shopB, 'shop B, no machine', null);
     const inC = await job(shopC, 'shop without machines', null);
 
+    await conn.query("UPDATE jobs SET updated_at = '2026-01-02 03:04:05'");
     expect(await runMigrations(scratch.url)).toEqual(journal.entries.filter((e) => Number(e.tag.slice(0, 4)) > 4).map((e) => e.tag));
-
     const [rows] = (await conn.query('SELECT id, machine_id AS machineId FROM jobs ORDER BY id')) as unknown as [{ id: number; machineId: number | null }[]];
+    const [stamps] = (await conn.query("SELECT DATE_FORMAT(updated_at, '%Y-%m-%d %H:%i:%s') AS t FROM jobs")) as unknown as [{ t: string }[]];
+    expect(new Set(stamps.map((r) => r.t))).toEqual(new Set(['2026-01-02 03:04:05'])); // naming the default is not an edit
     expect(rows).toEqual([
       { id: none, machineId: first },
       { id: named, machineId: second },
