@@ -16,13 +16,26 @@ import {
   char,
   bigint,
   date,
+  primaryKey,
 } from 'drizzle-orm/mysql-core';
-import { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, TOOL_KINDS, Z_ZEROS } from '@/lib/validation/enums';
+import { sql } from 'drizzle-orm';
+import {
+  ESTIMATE_STATUSES,
+  HOLD_DOWNS,
+  JOB_STATUSES,
+  MAIL_STATUSES,
+  QUOTE_STATUSES,
+  ROLES,
+  RUN_EVENT_KINDS,
+  RUN_STATUSES,
+  TOOL_KINDS,
+  Z_ZEROS,
+} from '@/lib/validation/enums';
 import type { MachineProfile } from '@/lib/validation/machine-profile';
 
 // The enumerations have one source, lib/validation/enums.ts (client bundles read it without
 // Drizzle); they are re-exported here for the queries.
-export { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, ROLES, TOOL_KINDS, Z_ZEROS };
+export { ESTIMATE_STATUSES, HOLD_DOWNS, JOB_STATUSES, MAIL_STATUSES, QUOTE_STATUSES, ROLES, RUN_EVENT_KINDS, RUN_STATUSES, TOOL_KINDS, Z_ZEROS };
 
 /** The job settings an estimate was made with, frozen beside it. */
 export interface EstimateSettingsDoc {
@@ -271,6 +284,8 @@ export const estimates = mysqlTable(
     infoCount: int('info_count'),
     partCount: int('part_count'),
     reportKey: varchar('report_key', { length: 255 }),
+    /** the per-hold-down-method analysis (hold-down comparison), stored as an object beside the report */
+    holdMethodsKey: varchar('hold_methods_key', { length: 255 }),
     attempts: int('attempts').notNull().default(0),
     leaseOwner: varchar('lease_owner', { length: 80 }),
     leaseUntil: timestamp('lease_until', { fsp: 3 }),
@@ -339,6 +354,199 @@ export const signInLimits = mysqlTable(
   (t) => [index('sign_in_limits_expires_idx').on(t.expiresAt)],
 );
 
+/**
+ * A shop's settings for prices, hold-down labour, consumables and calibration: one row per
+ * shop, made with the defaults below when first read. Money in integer minor units of the
+ * shop's currency, shares in basis points (1 % = 100 bp), times in seconds.
+ * The labour and consumable defaults are common practice figures from memory, to be set
+ * by each shop (docs/references.md says so beside each).
+ */
+export const shopSettings = mysqlTable('shop_settings', {
+  shopId: int('shop_id').primaryKey().references(() => shops.id),
+  /** printed on quotes: the shop's postal address, several lines */
+  address: varchar('address', { length: 500 }).notNull().default(''),
+  quoteTerms: varchar('quote_terms', { length: 2000 }).notNull().default(''),
+  quoteValidityDays: int('quote_validity_days').notNull().default(30),
+  /** per job: loading the program, zeroing, first-sheet checks */
+  setupS: double('setup_s').notNull().default(900),
+  /** per sheet: putting the sheet on the table and taking the cut parts off */
+  loadUnloadSPerSheet: double('load_unload_s_per_sheet').notNull().default(240),
+  wasteAllowanceBp: int('waste_allowance_bp').notNull().default(1000),
+  marginBp: int('margin_bp').notNull().default(2500),
+  taxBp: int('tax_bp').notNull().default(0),
+  /** the total before tax is rounded to a multiple of this many minor units (1: no rounding) */
+  roundToMinor: int('round_to_minor').notNull().default(100),
+  roundingMode: mysqlEnum('rounding_mode', ['nearest', 'up']).notNull().default('nearest'),
+  /** hand work after cutting, paid at this rate */
+  labourRateMinorPerHour: int('labour_rate_minor_per_hour').notNull().default(4000),
+  /** tape and glue: taping, gluing, peeling the tape off and cleaning glue off each part */
+  tapeGlueSPerPart: double('tape_glue_s_per_part').notNull().default(40),
+  /** tabs: cutting one tab free and sanding its stub flush */
+  tabSPerTab: double('tab_s_per_tab').notNull().default(12),
+  /** onion skin: breaking a part out of the skin and cleaning its bottom edge */
+  skinSPerPart: double('skin_s_per_part').notNull().default(20),
+  /** screws or clamps: fixing and freeing one sheet */
+  clampsSPerSheet: double('clamps_s_per_sheet').notNull().default(120),
+  /** double-sided or masking tape, by the area of the parts it holds */
+  tapeCostMinorPerM2: int('tape_cost_minor_per_m2').notNull().default(300),
+  glueCostMinorPerPart: int('glue_cost_minor_per_part').notNull().default(5),
+  /** calibration: how many of a machine's latest uninterrupted runs the suggestion uses */
+  calibrationRuns: int('calibration_runs').notNull().default(20),
+  /** and how many it needs before it suggests anything */
+  calibrationMinRuns: int('calibration_min_runs').notNull().default(5),
+  updatedAt: updated(),
+});
+
+/** The next quote number per shop and year; read and bumped under a row lock (SELECT … FOR UPDATE). */
+export const quoteCounters = mysqlTable(
+  'quote_counters',
+  {
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    year: int('year').notNull(),
+    next: int('next').notNull().default(1),
+  },
+  (t) => [primaryKey({ columns: [t.shopId, t.year] })],
+);
+
+/**
+ * A quote for a job, made from one stored estimate. `inputs` and `figures` are frozen
+ * copies (what was typed, and the estimate and profile figures used), `lines` the computed
+ * build-up; a later profile change or calibration never moves a sent price. A revision is
+ * a new quote whose revisionOf names the old one. The customer's link carries a random
+ * token; only its SHA-256 is stored.
+ */
+export const quotes = mysqlTable(
+  'quotes',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    jobId: int('job_id').notNull().references(() => jobs.id),
+    estimateId: int('estimate_id').notNull().references(() => estimates.id),
+    number: varchar('number', { length: 20 }).notNull(),
+    revisionOf: int('revision_of'),
+    status: mysqlEnum('status', QUOTE_STATUSES).notNull().default('draft'),
+    currency: char('currency', { length: 3 }).notNull(),
+    totalMinor: bigint('total_minor', { mode: 'number' }).notNull(),
+    inputs: jsonDoc<Record<string, unknown>>('inputs').notNull(),
+    figures: jsonDoc<Record<string, unknown>>('figures').notNull(),
+    lines: jsonDoc<unknown[]>('lines').notNull(),
+    validityDays: int('validity_days').notNull(),
+    validUntil: date('valid_until', { mode: 'string' }),
+    tokenHash: char('token_hash', { length: 64 }),
+    tokenUsedAt: timestamp('token_used_at'),
+    tokenRevokedAt: timestamp('token_revoked_at'),
+    sentAt: timestamp('sent_at'),
+    answeredAt: timestamp('answered_at'),
+    answerName: varchar('answer_name', { length: 160 }),
+    answerPo: varchar('answer_po', { length: 80 }),
+    declineReason: varchar('decline_reason', { length: 1000 }),
+    createdBy: int('created_by').references(() => users.id),
+    createdAt: created(),
+    updatedAt: updated(),
+  },
+  (t) => [
+    uniqueIndex('quotes_shop_number_unique').on(t.shopId, t.number),
+    uniqueIndex('quotes_token_unique').on(t.tokenHash),
+    index('quotes_job_idx').on(t.jobId, t.id),
+  ],
+);
+
+/** Every message Kerfcast hands to the SMTP server, with what became of it. */
+export const mailLog = mysqlTable(
+  'mail_log',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    quoteId: int('quote_id').references(() => quotes.id),
+    toAddress: varchar('to_address', { length: 190 }).notNull(),
+    subject: varchar('subject', { length: 300 }).notNull(),
+    status: mysqlEnum('status', MAIL_STATUSES).notNull().default('sending'),
+    /** the SMTP server's message id once it accepted the message */
+    messageId: varchar('message_id', { length: 255 }),
+    error: varchar('error', { length: 1000 }),
+    sentBy: int('sent_by').references(() => users.id),
+    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+    updatedAt: updated(),
+  },
+  (t) => [index('mail_log_shop_idx').on(t.shopId, t.id), index('mail_log_quote_idx').on(t.quoteId)],
+);
+
+/**
+ * One run of a program version on a machine, timed on the server. The timer is the list
+ * of run_events (start, pause, resume, finish); actualSeconds is the running time between
+ * them, written at finish (or typed for a run entered afterwards). activeMachineId is the
+ * machine while the run is running or paused and NULL otherwise: its unique index lets
+ * only one open run per machine exist.
+ */
+export const runs = mysqlTable(
+  'runs',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    jobId: int('job_id').notNull().references(() => jobs.id),
+    programId: int('program_id').notNull().references(() => programs.id),
+    programVersion: int('program_version').notNull(),
+    machineId: int('machine_id').notNull().references(() => machines.id),
+    machineVersion: int('machine_version').notNull(),
+    /** the stored estimate the run is measured against (null when none was done) */
+    estimateId: int('estimate_id').references(() => estimates.id),
+    operatorId: int('operator_id').notNull().references(() => users.id),
+    status: mysqlEnum('status', RUN_STATUSES).notNull().default('running'),
+    activeMachineId: int('active_machine_id').generatedAlwaysAs(sql`(case when \`status\` in ('running','paused') then \`machine_id\` end)`, {
+      mode: 'stored',
+    }),
+    startedAt: timestamp('started_at', { fsp: 3 }).notNull(),
+    finishedAt: timestamp('finished_at', { fsp: 3 }),
+    actualSeconds: double('actual_seconds'),
+    sheetsCut: int('sheets_cut'),
+    interrupted: boolean('interrupted').notNull().default(false),
+    notes: varchar('notes', { length: 2000 }),
+    /** entered afterwards by hand instead of timed */
+    manual: boolean('manual').notNull().default(false),
+    voidedAt: timestamp('voided_at'),
+    voidedBy: int('voided_by').references(() => users.id),
+    voidReason: varchar('void_reason', { length: 500 }),
+    createdAt: created(),
+    updatedAt: updated(),
+  },
+  (t) => [
+    uniqueIndex('runs_active_machine_unique').on(t.activeMachineId),
+    index('runs_shop_machine_idx').on(t.shopId, t.machineId, t.finishedAt),
+    index('runs_program_idx').on(t.programId, t.programVersion),
+  ],
+);
+
+/** The server's timestamps of a run's timer. */
+export const runEvents = mysqlTable(
+  'run_events',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    runId: int('run_id').notNull().references(() => runs.id),
+    kind: mysqlEnum('kind', RUN_EVENT_KINDS).notNull(),
+    at: timestamp('at', { fsp: 3 }).notNull(),
+    userId: int('user_id').references(() => users.id),
+  },
+  (t) => [index('run_events_run_idx').on(t.runId, t.at)],
+);
+
+/** The audit trail of corrections to runs: who changed which field from what to what, and why. */
+export const runChanges = mysqlTable(
+  'run_changes',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    shopId: int('shop_id').notNull().references(() => shops.id),
+    runId: int('run_id').notNull().references(() => runs.id),
+    userId: int('user_id').notNull().references(() => users.id),
+    field: varchar('field', { length: 40 }).notNull(),
+    before: varchar('before', { length: 2000 }),
+    after: varchar('after', { length: 2000 }),
+    reason: varchar('reason', { length: 500 }).notNull().default(''),
+    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+  },
+  (t) => [index('run_changes_run_idx').on(t.runId, t.id)],
+);
+
 export type Shop = typeof shops.$inferSelect;
 export type User = typeof users.$inferSelect;
 export type Machine = typeof machines.$inferSelect;
@@ -351,4 +559,10 @@ export type Program = typeof programs.$inferSelect;
 export type ProgramVersion = typeof programVersions.$inferSelect;
 export type EstimateRow = typeof estimates.$inferSelect;
 export type JobEvent = typeof jobEvents.$inferSelect;
+export type ShopSettings = typeof shopSettings.$inferSelect;
+export type QuoteRow = typeof quotes.$inferSelect;
+export type MailLogRow = typeof mailLog.$inferSelect;
+export type RunRow = typeof runs.$inferSelect;
+export type RunEvent = typeof runEvents.$inferSelect;
+export type RunChange = typeof runChanges.$inferSelect;
 export type Role = (typeof ROLES)[number];

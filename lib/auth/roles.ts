@@ -5,17 +5,20 @@
 //
 // | role       | pages                               | actions                                            |
 // |------------|-------------------------------------|----------------------------------------------------|
-// | admin      | jobs, machines, materials,          | everything (shop settings only here)               |
-// |            | customers, users                    |                                                    |
-// | programmer | jobs, machines, materials,          | jobs rw, programs rw (upload), estimates rw,       |
-// |            | customers                           | machines rw, materials rw, customers rw;           |
+// | admin      | dashboard, jobs, preview, runs,     | everything (shop settings, calibration and         |
+// |            | machines, materials, customers,     | correcting any run only here)                      |
+// |            | users, settings                     |                                                    |
+// | programmer | jobs, preview, runs, machines,      | jobs rw, programs rw (upload), estimates rw,       |
+// |            | materials, customers                | machines rw, materials rw, customers rw,           |
+// |            |                                     | hold-down comparison, runs read;                   |
 // |            |                                     | job status: mark programmed, cancel                |
-// | estimator  | jobs, machines, materials,          | jobs read, programs read, estimates rw (request),  |
-// |            | customers                           | machines read, materials read, customers rw;       |
+// | estimator  | dashboard, jobs, preview, runs,     | jobs read, programs read, estimates rw (request),  |
+// |            | machines, materials, customers      | machines read, materials read, customers rw,       |
+// |            |                                     | quotes rw, hold-down comparison, runs read;        |
 // |            |                                     | job status: mark quoted, mark accepted, schedule,  |
 // |            |                                     | cancel                                             |
-// | operator   | jobs, machines, materials           | jobs read, programs read, estimates read,          |
-// |            |                                     | machines read, materials read;                     |
+// | operator   | jobs, preview, runs, machines,      | jobs read, programs read, estimates read,          |
+// |            | materials                           | machines read, materials read, runs rw (own);      |
 // |            |                                     | job status: start run, finish run                  |
 //
 // What an action reads along with its rows (READS_ALONG below): jobs:read gives every role
@@ -57,8 +60,23 @@ export const ACTIONS = {
   'customers:write': ['admin', 'programmer', 'estimator'],
   'users:read': ['admin'],
   'users:write': ['admin'],
-  // shop-wide settings (the length unit forms show)
+  // shop-wide settings (the length unit forms show; quote, labour and calibration settings)
   'shop:write': ['admin'],
+  // quotes: the estimator's work (PRODUCT.md, main job step Quote), the admin's too
+  'quotes:read': ['admin', 'estimator'],
+  'quotes:write': ['admin', 'estimator'],
+  // the hold-down comparison prices labour at the shop's rates: the people who choose the
+  // method (the programmer, in the CAM program) and the people who price it
+  'holddown:read': ['admin', 'programmer', 'estimator'],
+  // runs at the machine: every role reads them (estimated vs actual); operators log them
+  'runs:read': ['admin', 'programmer', 'estimator', 'operator'],
+  'runs:write': ['admin', 'operator'],
+  // correcting or voiding any run, on any day (operators correct their own, on the day)
+  'runs:correct-any': ['admin'],
+  // a calibration makes a new machine version: the admin's set-up (PRODUCT.md, Learn)
+  'calibration:apply': ['admin'],
+  // the shop's dashboard: the landing page of the office
+  'dashboard:read': ['admin', 'estimator'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof ACTIONS;
@@ -78,10 +96,14 @@ export interface PageRule {
 /** In navigation order. */
 export const PAGES = {
   jobs: { href: '/jobs', label: 'Jobs', needs: 'jobs:read' },
+  dashboard: { href: '/dashboard', label: 'Dashboard', needs: 'dashboard:read' },
+  preview: { href: '/preview', label: 'Preview', needs: 'programs:read' },
+  runs: { href: '/runs', label: 'Runs', needs: 'runs:read' },
   machines: { href: '/machines', label: 'Machines', needs: 'machines:read' },
   materials: { href: '/materials', label: 'Materials', needs: 'materials:read' },
   customers: { href: '/customers', label: 'Customers', needs: 'customers:read' },
   users: { href: '/admin/users', label: 'Users', needs: 'users:read' },
+  settings: { href: '/admin/settings', label: 'Settings', needs: 'shop:write' },
 } as const satisfies Record<string, PageRule>;
 
 export type PageKey = keyof typeof PAGES;
@@ -102,7 +124,7 @@ export function pagesFor(role: Role): { key: PageKey; href: string; label: strin
   return (Object.keys(PAGES) as PageKey[]).filter((key) => canSee(role, key)).map((key) => ({ key, href: PAGES[key].href, label: PAGES[key].label }));
 }
 
-/** Where a role lands after signing in: its first page. Every role can see jobs. */
+/** Where a role lands after signing in: its first page . Every role can see jobs. */
 export function homeFor(role: Role): string {
   return pagesFor(role)[0]?.href ?? '/jobs';
 }

@@ -8,6 +8,13 @@ export const JOB_STATUSES = ['draft', 'programmed', 'quoted', 'accepted', 'sched
 export const ESTIMATE_STATUSES = ['pending', 'running', 'done', 'failed'] as const;
 /** Router bit kinds of a machine's tool library (PRODUCT.md: up-cut, down-cut, compression, straight, V, ball). */
 export const TOOL_KINDS = ['upcut', 'downcut', 'compression', 'straight', 'v', 'ball'] as const;
+/** A quote's life: drafted, sent to the customer, then answered or run out of time. */
+export const QUOTE_STATUSES = ['draft', 'sent', 'accepted', 'declined', 'expired'] as const;
+/** A message handed to the SMTP server: being sent, accepted by the server, or refused with its reason. */
+export const MAIL_STATUSES = ['sending', 'sent', 'failed'] as const;
+/** A run at the machine: timer running, paused, finished, or voided by an admin. */
+export const RUN_STATUSES = ['running', 'paused', 'finished', 'voided'] as const;
+export const RUN_EVENT_KINDS = ['start', 'pause', 'resume', 'finish'] as const;
 
 export type Role = (typeof ROLES)[number];
 export type HoldDown = (typeof HOLD_DOWNS)[number];
@@ -15,6 +22,10 @@ export type ZZero = (typeof Z_ZEROS)[number];
 export type JobStatus = (typeof JOB_STATUSES)[number];
 export type EstimateStatus = (typeof ESTIMATE_STATUSES)[number];
 export type ToolKind = (typeof TOOL_KINDS)[number];
+export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
+export type MailStatus = (typeof MAIL_STATUSES)[number];
+export type RunStatus = (typeof RUN_STATUSES)[number];
+export type RunEventKind = (typeof RUN_EVENT_KINDS)[number];
 
 export const ROLE_LABELS: Record<Role, string> = {
   admin: 'Admin',

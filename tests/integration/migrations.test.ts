@@ -57,7 +57,7 @@ describe('migrations on an empty database', () => {
     const names = (rows as { name: string }[]).map((r) => r.name).sort();
     // shops, users, machines, machine_versions, tools, materials, customers, jobs,
     // programs, program_versions, estimates, job_events, user_sessions, sign_in_limits
-    expect(tables.length).toBe(14);
+    expect(tables.length).toBe(21);
     expect(names).toEqual([...tables.map((t) => t.name), '__drizzle_migrations'].sort());
   });
 

@@ -38,6 +38,14 @@ const MATRIX: Record<Action, [boolean, boolean, boolean, boolean]> = {
   'users:read':              [Y, N, N, N],
   'users:write':             [Y, N, N, N],
   'shop:write':              [Y, N, N, N], // brief: the shop owner / admin sets the shop up
+  'quotes:read':             [Y, N, Y, N], // brief: Quote (estimator)
+  'quotes:write':            [Y, N, Y, N], // brief: Quote (estimator) builds, sends and revises
+  'holddown:read':           [Y, Y, Y, N], // inferred: the programmer chooses the method, the estimator prices it
+  'runs:read':               [Y, Y, Y, Y], // brief: Learn (estimated vs actual); the operator sees the runs
+  'runs:write':              [Y, N, N, Y], // brief: Run (operator) logs the real time
+  'runs:correct-any':        [Y, N, N, N], // issue 15: admins correct or void any run
+  'calibration:apply':       [Y, N, N, N], // brief: Learn (admin) applies a calibration
+  'dashboard:read':          [Y, N, Y, N], // issue 15: the landing page for admin and estimator
 };
 
 describe('role table', () => {
@@ -60,10 +68,10 @@ describe('role table', () => {
 
 describe('navigation', () => {
   const expected: Record<Role, string[]> = {
-    admin: ['Jobs', 'Machines', 'Materials', 'Customers', 'Users'],
-    programmer: ['Jobs', 'Machines', 'Materials', 'Customers'],
-    estimator: ['Jobs', 'Machines', 'Materials', 'Customers'],
-    operator: ['Jobs', 'Machines', 'Materials'],
+    admin: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'],
+    programmer: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'],
+    estimator: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'],
+    operator: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials'],
   };
 
   it.each(ROLES)('%s sees exactly its pages, in navigation order', (role) => {
