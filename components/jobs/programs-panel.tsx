@@ -2,6 +2,7 @@
 // The job's programs (GET /api/jobs/[jobId]/programs, SWR) with the latest estimate of each,
 // and the upload widget for roles that may upload. A stored upload refreshes the list here and
 // the server-rendered parts of the page (status, history) through router.refresh().
+import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useCallback } from 'react';
 import useSWR from 'swr';
@@ -66,7 +67,11 @@ export function ProgramsPanel({ jobId, canUpload, canRequestEstimates, maxUpload
         {data.programs.map((p) => (
           <li key={p.id} className="rounded-md border-2 border-rule bg-panel p-5" data-testid="program" data-program-name={p.name}>
             <div className="flex flex-wrap items-baseline justify-between gap-3 border-b-2 border-rule-light pb-3">
-              <h4 className="break-all font-mono text-lg font-bold">{p.name}</h4>
+              <h4 className="break-all font-mono text-lg font-bold">
+                <Link href={`/jobs/${jobId}/programs/${p.id}`} className="text-spruce underline underline-offset-4" data-testid="program-link">
+                  {p.name}
+                </Link>
+              </h4>
               <p className="text-sm text-ink-soft">
                 <span className="figure">v{p.latest.version}</span> · <span className="figure">{p.latest.lines.toLocaleString('en')}</span> lines ·{' '}
                 <span className="figure">{formatBytes(p.latest.bytes)}</span> · uploaded {formatWhen(p.latest.createdAt)} ·{' '}
