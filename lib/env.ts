@@ -91,6 +91,11 @@ const schemaFor = (p: z.infer<typeof portsSchema>) => z.object({
   PROGRAM_MAX_BYTES: z.coerce.number().int().min(1024).max(4 * 1024 * 1024 * 1024).default(100 * 1024 * 1024),
   /** worker threads that compute estimates; unset: the number of cores minus one, at least one */
   ESTIMATE_POOL_SIZE: z.coerce.number().int().min(1).max(64).optional(),
+  /**
+   * how long a claimed estimate stays with its process without a renewal (renewed every third
+   * of it while the work runs); a process that dies leaves its rows to others after this
+   */
+  ESTIMATE_LEASE_SECONDS: z.coerce.number().int().min(3).max(3600).default(30),
 });
 
 export type Env = Omit<z.infer<ReturnType<typeof schemaFor>>, 'AUTH_SECRET' | 'S3_FORCE_PATH_STYLE' | 'DATABASE_URL'> & {

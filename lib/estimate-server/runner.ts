@@ -162,7 +162,11 @@ export class EstimateQueue {
     work
       .then(
         async (outcome) => {
-          if (entry.lost || this.stopped) return;
+          if (entry.lost || this.stopped) {
+            // every computation that ran to its end leaves a line, stored or not
+            if (outcome.ok) this.log(`estimate ${claimed.id} was computed after this process lost its lease or began to stop; this result is dropped`);
+            return;
+          }
           if (outcome.ok) {
             const stored = await completeEstimate(this.db, this.owner, claimed, outcome);
             if (!stored) this.log(`estimate ${claimed.id} was taken over by another process before it finished here; this result is dropped`);

@@ -41,7 +41,7 @@ export async function startEstimateQueue(root: string = process.cwd()): Promise<
     );
     return undefined;
   }
-  const queue = new EstimateQueue({ db, workerFile, poolSize: estimatePoolSize() });
+  const queue = new EstimateQueue({ db, workerFile, poolSize: estimatePoolSize(), leaseMs: env.ESTIMATE_LEASE_SECONDS * 1000 });
   registerEstimateQueue(queue);
   await queue.start();
   return queue;
