@@ -101,12 +101,41 @@ export async function setProgress(db: Db, owner: string, id: number, progress: n
     .where(and(eq(estimates.id, id), eq(estimates.leaseOwner, owner), eq(estimates.status, 'running')));
 }
 
+/** MariaDB ended this transaction to break a deadlock (ER_LOCK_DEADLOCK, 1213): it may simply be run again. */
+export function isDeadlock(err: unknown): boolean {
+  for (let e: unknown = err; e; e = (e as { cause?: unknown }).cause) {
+    const { code, errno } = e as { code?: unknown; errno?: unknown };
+    if (code === 'ER_LOCK_DEADLOCK' || errno === 1213) return true;
+  }
+  return false;
+}
+
+/** Runs `work` (one whole transaction) again when MariaDB chose it as a deadlock's victim, a few times. */
+export async function retryDeadlocks<T>(work: () => Promise<T>, tries = 4): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await work();
+    } catch (err) {
+      if (attempt >= tries || !isDeadlock(err)) throw err;
+      console.warn(`[kerfcast] estimate queue: MariaDB ended a transaction to break a deadlock; running it again (attempt ${attempt + 1} of ${tries})`);
+      await new Promise((r) => setTimeout(r, 10 * attempt + Math.random() * 20));
+    }
+  }
+}
+
 /**
  * Stores the result, in one transaction with the job's history line, if `owner` still holds
  * the row. false: another process took it over (its lease ran out), and the result is dropped.
+ * READ COMMITTED: the guarded UPDATE may be read through estimates_queue_idx (status, id),
+ * and under REPEATABLE READ it then also locked the gap before the running rows, where a new
+ * pending row goes. An upload holds its job's row lock while it inserts that pending row, and
+ * the history line here needs a shared lock on the same job row (its foreign key): the two
+ * waited on each other and MariaDB ended this one, losing a finished computation (seen with
+ * two processes and uploads to the job meanwhile). Without the gap lock there is no cycle;
+ * a deadlock of some other kind is run again rather than lost.
  */
 export async function completeEstimate(db: Db, owner: string, claimed: ClaimedEstimate, result: EstimateTaskResult): Promise<boolean> {
-  return db.transaction(async (tx) => {
+  return retryDeadlocks(() => db.transaction(async (tx) => {
     const [update] = await tx
       .update(estimates)
       .set({
@@ -135,7 +164,7 @@ export async function completeEstimate(db: Db, owner: string, claimed: ClaimedEs
       detail: `Estimate ${claimed.id} of ${claimed.fileName} v${claimed.programVersion}: ${result.totalSeconds.toFixed(1)} s, ${result.errorCount} errors, ${result.warningCount} warnings.`.slice(0, 500),
     });
     return true;
-  });
+  }, { isolationLevel: 'read committed' }));
 }
 
 /** Stores the reason of a failed computation if `owner` still holds the row; a request for the same inputs retries it. */
