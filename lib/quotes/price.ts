@@ -20,6 +20,7 @@
 // minor unit by integer arithmetic (⌊(a × b + d/2) ÷ d⌋, a, b, d integers, never a float
 // product of money); shares are basis points (1 % = 100 bp). Rounding to roundToMinor is
 // applied to the net before tax, so the tax is computed on the figure the customer sees.
+import { minorDigits } from '../units/money';
 import { holdDownLabour, type HoldDownLabourSettings, type HoldDownMethod } from './hold-down-labour';
 
 export interface PriceSettings extends HoldDownLabourSettings {
@@ -131,18 +132,9 @@ export function formatSeconds(s: number): string {
   return `${h} h ${String(m).padStart(2, '0')} min ${String(sec).padStart(2, '0')} s`;
 }
 
-/** Minor-unit digits of a currency (2 for EUR, 0 for JPY), from the platform's ISO 4217 data. */
-export function currencyDigits(currency: string): number {
-  try {
-    return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
-  } catch {
-    return 2;
-  }
-}
-
 /** "EUR 1,234.50" from 123450 minor units, by integer division (no float money). */
 export function formatMoney(minor: number, currency: string): string {
-  const digits = currencyDigits(currency);
+  const digits = minorDigits(currency);
   const sign = minor < 0 ? '−' : '';
   const abs = Math.abs(minor);
   const unit = 10 ** digits;
