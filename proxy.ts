@@ -12,7 +12,8 @@ import { getToken } from 'next-auth/jwt';
 import { env } from '@/lib/env';
 import { isHttpsUrl, securityHeaders } from '@/lib/http/security-headers.mjs';
 
-const PUBLIC_PREFIXES = ['/sign-in'];
+// /q/: the customer's quote page, opened from the e-mailed link without an account
+const PUBLIC_PREFIXES = ['/sign-in', '/q/'];
 
 // 128 random bits, base64: CSP Level 3 (its security considerations on nonces) asks for
 // at least 128 bits from a secure generator, new for every response.
