@@ -14,7 +14,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Action } from '@/lib/auth/roles';
 import * as harness from '../support/handlers';
-import { ACTION_SPECS, OWN_PASSWORD, ROUTE_SPECS, ROUTES_OUTSIDE_API, type ActionSpec, type RouteSpec } from '../support/handler-specs';
+import { ACTION_SPECS, OWN_PASSWORD, PUBLIC, ROUTE_SPECS, ROUTES_OUTSIDE_API, type ActionSpec, type RouteSpec } from '../support/handler-specs';
 
 harness.installMocks();
 const { canDo } = await import('@/lib/auth/roles');
@@ -27,7 +27,7 @@ type Role = (typeof ROLES)[number];
  * ("forbidden:job" for the jobs resource): the resource in the singular.
  */
 const subject = (spec: { action: string }) => (spec.action === OWN_PASSWORD ? 'password' : spec.action.split(':')[0].replace(/s$/, ''));
-const allowed = (spec: { action: Action | typeof OWN_PASSWORD }, role: Role) => spec.action === OWN_PASSWORD || canDo(role, spec.action);
+const allowed = (spec: { action: Action | typeof OWN_PASSWORD | typeof PUBLIC }, role: Role) => spec.action === OWN_PASSWORD || spec.action === PUBLIC || canDo(role, spec.action);
 
 const routeFiles = harness.discoverRoutes();
 const actionFiles = harness.discoverActions();
@@ -62,9 +62,9 @@ function expectReachedDataAsOwnShop() {
 
 describe('discovery', () => {
   it('finds the route handlers and server actions on disk', () => {
-    // counted when this test was written: 20 route files with 37 handlers, 6 action files with 18 actions
-    expect(routeFiles.length).toBeGreaterThanOrEqual(20);
-    expect(routes.length).toBeGreaterThanOrEqual(37);
+    // counted when this test was written: 27 route files with 46 handlers, 6 action files with 18 actions
+    expect(routeFiles.length).toBeGreaterThanOrEqual(27);
+    expect(routes.length).toBeGreaterThanOrEqual(46);
     expect(actionFiles.length).toBeGreaterThanOrEqual(6);
     expect(actions.length).toBeGreaterThanOrEqual(18);
   });
@@ -98,6 +98,23 @@ describe('route handlers, called as every role', () => {
   for (const route of routes) {
     const spec = ROUTE_SPECS[route.key];
     if (!spec) continue; // reported by the discovery test above
+    if (spec.action === PUBLIC) {
+      describe(`${route.key} (public: ${spec.publicBecause})`, () => {
+        it('says why it is public', () => expect(spec.publicBecause?.length).toBeGreaterThan(20));
+        for (const role of [...ROLES, null]) {
+          it(`${role ?? 'signed out'}: answered the same, without the session deciding`, async () => {
+            harness.reset(spec.answers);
+            harness.signInAs(role);
+            const answer = await harness.callRoute(route.handler, callOf(route, spec));
+            expect(answer.status, JSON.stringify(answer.body)).toBe(spec.status ?? 200);
+            expect(harness.dataCalls().length).toBeGreaterThan(0);
+            // nothing of the signed-in user's shop rides along into a public answer
+            for (const c of harness.dataCalls()) expect(c.args).not.toContain(harness.SHOP_ID);
+          });
+        }
+      });
+      continue;
+    }
     describe(route.key, () => {
       for (const role of ROLES) {
         const may = allowed(spec, role);

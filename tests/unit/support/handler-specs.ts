@@ -16,6 +16,8 @@ import type { Answers } from './handlers';
 
 /** any signed-in role, also one who must still replace a one-time password */
 export const OWN_PASSWORD = 'own-password' as const;
+/** no sign-in at all: a customer's tokenised link (the token is the key) */
+export const PUBLIC = 'public' as const;
 
 export interface Boundary {
   label: string;
@@ -31,7 +33,9 @@ export interface BodyChecks {
 }
 
 export interface RouteSpec {
-  action: Action | typeof OWN_PASSWORD;
+  action: Action | typeof OWN_PASSWORD | typeof PUBLIC;
+  /** for a PUBLIC route: why no role guards it */
+  publicBecause?: string;
   /** params of the route's [segments]; each defaults to '5' */
   params?: Record<string, string>;
   query?: string;
@@ -110,6 +114,14 @@ const materialBoundaries: Boundary[] = [
 
 const machine = { ...profile, hourlyRateMinor: 8500, defaultHoldDown: 'vacuum', defaultVacuumKpa: 60 };
 const tool = { number: 5, diameterMm: 6, flutes: 2, kind: 'upcut', description: 'spare 6 mm up-cut' };
+
+const quote = { estimateId: 21, quantity: 400, partsPerSheet: 24, holdDown: 'vacuum', extraLines: [{ label: 'Edge polishing', amountMinor: 4500 }] };
+const shopSettings = {
+  address: '4 Kiln Yard, Easton', quoteTerms: 'Payment within 30 days.', quoteValidityDays: 30, setupS: 900, loadUnloadSPerSheet: 120,
+  wasteAllowanceBp: 500, marginBp: 2500, taxBp: 2000, roundToMinor: 100, roundingMode: 'nearest', labourRateMinorPerHour: 3200,
+  tapeGlueSPerPart: 20, tabSPerTab: 8, skinSPerPart: 30, clampsSPerSheet: 90, tapeCostMinorPerM2: 150, glueCostMinorPerPart: 3,
+  calibrationRuns: 10, calibrationMinRuns: 3,
+};
 
 const user = { name: 'Ines Ward', email: 'ines@alder-finch.example', role: 'operator', password: 'a long pass phrase 7' };
 const password = { currentPassword: 'kerfcast-demo', newPassword: 'a new pass phrase 9', repeatPassword: 'a new pass phrase 9' };
@@ -250,6 +262,61 @@ export const ROUTE_SPECS: Record<string, RouteSpec> = {
     action: 'shop:write',
     body: { lengthUnit: 'inch' },
     input: { wrongTypes: { body: { lengthUnit: 25.4 }, fields: ['lengthUnit'] }, boundaries: [{ label: 'a unit that is not offered', body: { lengthUnit: 'cubit' }, expect: 'lengthUnit' }] },
+  },
+  'GET /api/jobs/[jobId]/quotes': { action: 'quotes:read', answers: { listJobQuotes: [] } },
+  'POST /api/jobs/[jobId]/quotes': {
+    action: 'quotes:write',
+    body: quote,
+    status: 201,
+    input: {
+      wrongTypes: { body: { ...quote, estimateId: 'latest', holdDown: 'glue', extraLines: 'none' }, fields: ['estimateId', 'extraLines', 'holdDown'] },
+      boundaries: [
+        { label: 'quantity 1,000,000', body: { ...quote, quantity: 1_000_000 }, expect: true },
+        { label: 'quantity 1,000,001', body: { ...quote, quantity: 1_000_001 }, expect: 'quantity' },
+        { label: 'quantity "Infinity"', body: { ...quote, quantity: 'Infinity' }, expect: 'quantity' },
+        { label: 'parts per sheet 100,000', body: { ...quote, partsPerSheet: 100_000 }, expect: true },
+        { label: 'parts per sheet 0', body: { ...quote, partsPerSheet: 0 }, expect: 'partsPerSheet' },
+        { label: 'a 190-character line name', body: { ...quote, extraLines: [{ label: chars(190), amountMinor: 100 }] }, expect: true },
+        { label: 'a 201-character line name', body: { ...quote, extraLines: [{ label: chars(201), amountMinor: 100 }] }, expect: 'extraLines.0.label' },
+        { label: 'an amount of 12.5 minor units', body: { ...quote, extraLines: [{ label: 'Edge polishing', amountMinor: 12.5 }] }, expect: 'extraLines.0.amountMinor' },
+      ],
+    },
+  },
+  'GET /api/quotes/[quoteId]': { action: 'quotes:read' },
+  'GET /api/quotes/[quoteId]/pdf': { action: 'quotes:read', answers: { pdfForQuote: Buffer.from('%PDF-1.7\n') } },
+  'POST /api/quotes/[quoteId]/revoke': { action: 'quotes:write' },
+  'POST /api/quotes/[quoteId]/send': { action: 'quotes:write' },
+  'POST /api/q/[token]': {
+    action: PUBLIC,
+    publicBecause: "the customer's answer to a quote: no account, the link's token is the key (PRODUCT.md: customer, no account)",
+    params: { token: 'k'.repeat(43) },
+    body: { answer: 'accept', name: 'Marlow Street Bakery, J. Baker' },
+    answers: { answerQuote: { ok: true } },
+    input: {
+      wrongTypes: { body: { answer: 'accept', name: 7, purchaseOrder: 12 }, fields: ['name', 'purchaseOrder'] },
+      boundaries: [
+        { label: 'an answer that is neither', body: { answer: 'maybe' }, expect: 'answer' },
+        { label: 'a 160-character name', body: { answer: 'accept', name: chars(160) }, expect: true },
+        { label: 'a 161-character name', body: { answer: 'accept', name: chars(161) }, expect: 'name' },
+        { label: 'a 190-character name', body: { answer: 'accept', name: chars(190) }, expect: 'name' },
+        { label: 'a 1000-character reason to decline', body: { answer: 'decline', reason: chars(1000) }, expect: true },
+      ],
+    },
+  },
+  'GET /api/shop/settings': { action: 'shop:write' },
+  'PUT /api/shop/settings': {
+    action: 'shop:write',
+    body: shopSettings,
+    input: {
+      wrongTypes: { body: { ...shopSettings, marginBp: 'a quarter', roundingMode: 5 }, fields: ['marginBp', 'roundingMode'] },
+      boundaries: [
+        { label: 'setup time "Infinity"', body: { ...shopSettings, setupS: 'Infinity' }, expect: 'setupS' },
+        { label: 'tax 100 %', body: { ...shopSettings, taxBp: 10_000 }, expect: true },
+        { label: 'tax 100.01 %', body: { ...shopSettings, taxBp: 10_001 }, expect: 'taxBp' },
+        { label: 'fewer runs than the minimum', body: { ...shopSettings, calibrationRuns: 2, calibrationMinRuns: 3 }, expect: 'calibrationMinRuns' },
+        { label: 'a key the settings do not have', body: { ...shopSettings, currency: 'EUR' }, expect: '_form' },
+      ],
+    },
   },
   'GET /api/users': { action: 'users:read' },
   'POST /api/users': {
