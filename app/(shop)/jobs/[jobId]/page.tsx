@@ -7,6 +7,7 @@ import { notFound } from 'next/navigation';
 import { JobStatusBadge } from '@/components/jobs/job-status-badge';
 import { ProgramsPanel } from '@/components/jobs/programs-panel';
 import { StatusActions } from '@/components/jobs/status-actions';
+import { JobQuotes } from '@/components/quotes/job-quotes';
 import { LinkButton } from '@/components/ui/link-button';
 import { getJob, listJobEvents, programCount } from '@/db/queries/jobs';
 import { whoMay } from '@/lib/auth/messages';
@@ -107,6 +108,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
             maxUploadBytes={env.PROGRAM_MAX_BYTES}
             uploadRoles={whoMay('programs:write', true)}
           />
+          {canDo(user.role, 'quotes:read') ? <JobQuotes jobId={job.id} canWrite={canDo(user.role, 'quotes:write')} /> : null}
         </div>
 
         <section aria-labelledby="history-title" className="rounded-md border-2 border-rule bg-panel p-5">
