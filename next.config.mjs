@@ -7,7 +7,13 @@
 // same policy again from proxy.ts, with the request's nonce; a header set there
 // replaces the one set here. Next.js reads headers() at build time, so HSTS on static
 // files follows the APP_URL the build saw; pages follow the running server's APP_URL.
+//
+// turbopack.resolveAlias: in browser bundles (the viewer's Web Worker) gcode-parser's top-level
+// Node imports get the stand-ins of workers/shims/node-builtins-browser.ts, and the polygon
+// library its web build (the same Clipper WebAssembly, without the Node file loader).
 import { isHttpsUrl, securityHeaders } from './lib/http/security-headers.mjs';
+
+const BROWSER_SHIM = './workers/shims/node-builtins-browser.ts';
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
@@ -20,6 +26,15 @@ const nextConfig = {
   // analysis's Clipper build, which finds and instantiates its WebAssembly at run time;
   // piscina starts its worker threads from files of its own package.
   serverExternalPackages: ['mysql2', 'bcryptjs', 'js-angusj-clipper', 'piscina'],
+  turbopack: {
+    resolveAlias: {
+      events: { browser: BROWSER_SHIM },
+      fs: { browser: BROWSER_SHIM },
+      stream: { browser: BROWSER_SHIM },
+      timers: { browser: BROWSER_SHIM },
+      'js-angusj-clipper': { browser: 'js-angusj-clipper/web' },
+    },
+  },
   async headers() {
     const headers = securityHeaders({ https: isHttpsUrl(process.env.APP_URL), dev: process.env.NODE_ENV === 'development' });
     return [{ source: '/:path*', headers: headers.map(([key, value]) => ({ key, value })) }];

@@ -5,6 +5,7 @@
 // type scale starts at 18 px so a table is readable at arm's length from the machine.
 // tests/unit/style/palette-contrast.test.ts checks the pairings the pages use.
 import type { Config } from 'tailwindcss';
+import { PATH_COLOURS } from './lib/viewer/palette';
 
 const config: Config = {
   content: ['./app/**/*.{ts,tsx}', './components/**/*.{ts,tsx}'],
@@ -31,6 +32,8 @@ const config: Config = {
       // dark surfaces (navigation bar, table heads, later the 3D viewer background);
       // edge is the border of a control on them: 5.3:1 on night, 4.5:1 on raised
       night: { DEFAULT: '#1b2026', raised: '#262d35', line: '#4a535e', edge: '#8a939e' },
+      // the 3D viewer's path and marker colours, one list with the scene (lib/viewer/palette.ts)
+      path: { ...PATH_COLOURS },
     },
     fontFamily: {
       sans: ['var(--font-text)', 'system-ui', 'sans-serif'],

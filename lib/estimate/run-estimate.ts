@@ -33,16 +33,26 @@ export interface EstimateRun {
 /** The stages runEstimate has finished, in order; the server's worker turns them into progress. */
 export type EstimateStage = 'interpreted' | 'planned' | 'checked';
 
+/** Finer progress inside the stages (the browser worker's bar): lines interpreted, moves planned. */
+export interface EstimateProgress {
+  onLines?: (linesDone: number, totalLines: number) => void;
+  onMoves?: (movesDone: number, totalMoves: number) => void;
+}
+
 export function runEstimate(
   text: string,
   profile: MachineProfile,
   job: EstimateJob,
   file: EstimateFile,
   onStage?: (stage: EstimateStage) => void,
+  progress?: EstimateProgress,
 ): EstimateRun {
-  const interpretation = interpret(text, { home: profile.homeMm });
+  const interpretation = interpret(text, { home: profile.homeMm, ...(progress?.onLines ? { onProgress: progress.onLines } : {}) });
   onStage?.('interpreted');
-  const est = estimate(interpretation.moves, profile, { stockTopZ: stockTopZ(job.zero, job.sheet?.thicknessMm) });
+  const est = estimate(interpretation.moves, profile, {
+    stockTopZ: stockTopZ(job.zero, job.sheet?.thicknessMm),
+    ...(progress?.onMoves ? { onProgress: progress.onMoves } : {}),
+  });
   onStage?.('planned');
   const checks = analyze(interpretation.moves, {
     sheet: job.sheet,

@@ -8,6 +8,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { Notice } from '@/components/ui/notice';
+import { ProgramPageViewer } from '@/components/viewer/program-page-viewer';
 import { getJob } from '@/db/queries/jobs';
 import { getProgramPage } from '@/db/queries/program-view';
 import { guardPage } from '@/lib/auth/page-guard';
@@ -48,9 +49,9 @@ export default async function ProgramPage({
   if (jobId === null || programId === null || (rawVersion !== undefined && version === null)) notFound();
   const job = await getJob(user.shopId, jobId);
   if (!job) notFound();
-  const data = await getProgramPage(user.shopId, job.id, programId, version);
+  const data = await getProgramPage(user.shopId, job, programId, version);
   if (!data) notFound();
-  const { program, version: shown, stored } = data;
+  const { program, version: shown, stored, inputs } = data;
 
   return (
     <>
@@ -88,7 +89,20 @@ export default async function ProgramPage({
 
       <div className="grid items-start gap-8 xl:grid-cols-[minmax(0,2.4fr)_minmax(0,1fr)]">
         <div className="flex min-w-0 flex-col gap-6" data-testid="program-view-column">
-          <p className="text-ink-soft">The 3D view of this version opens here.</p>
+          {inputs ? (
+            <ProgramPageViewer
+              programId={program.id}
+              version={shown.version}
+              name={program.name}
+              profile={inputs.profile}
+              job={inputs.settings}
+              stored={stored && stored.estimate.status === 'done' ? { id: stored.estimate.id, engineVersion: stored.estimate.engineVersion } : null}
+            />
+          ) : (
+            <Notice tone="caution" title="This job names no machine." role="status">
+              The view plans the motion for a machine’s limits: choose the job’s machine on its edit page.
+            </Notice>
+          )}
         </div>
 
         <div className="flex min-w-0 flex-col gap-6">

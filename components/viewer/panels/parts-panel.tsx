@@ -1,0 +1,51 @@
+'use client';
+// The parts the program cuts free, in the order they come free: size, area, whether something
+// holds each and what, and the line that frees it. Choosing a part focuses the camera on it and
+// moves the playhead to that line.
+import { HELD_BY_WORDS, type ReportPartView } from '@/lib/jobs/estimate-view';
+import type { LengthUnit } from '@/lib/units/length';
+import { formatArea, formatSize } from '@/lib/viewer/readouts';
+
+export function PartsPanel({ parts, unit, flagged, onChoose }: { parts: ReportPartView[]; unit: LengthUnit; flagged: ReadonlySet<number>; onChoose: (p: ReportPartView) => void }) {
+  return (
+    <section className="rounded-md border-2 border-rule bg-panel">
+      <div className="max-h-96 overflow-auto">
+        <table className="w-full text-sm" data-testid="viewer-parts">
+          <caption className="px-3 py-2 text-left text-base font-bold">Parts</caption>
+          <thead className="bg-night text-white">
+            <tr>
+              <th scope="col" className="px-2 py-1 text-left">Order</th>
+              <th scope="col" className="px-2 py-1 text-left">Size X × Y</th>
+              <th scope="col" className="px-2 py-1 text-left">Area</th>
+              <th scope="col" className="px-2 py-1 text-left">Held</th>
+              <th scope="col" className="px-2 py-1 text-left">Freed at</th>
+            </tr>
+          </thead>
+          <tbody>
+            {parts.map((p) => {
+              const w = p.bbox.maxX - p.bbox.minX;
+              const l = p.bbox.maxY - p.bbox.minY;
+              return (
+                <tr key={p.id} className={`border-t border-rule-light ${flagged.has(p.id) ? 'bg-fault-tint' : ''}`} data-part-order={p.order}>
+                  <td className="px-2 py-1">
+                    <button type="button" onClick={() => onChoose(p)} className="figure font-bold text-spruce underline underline-offset-4" aria-label={`Part ${p.order}: show it`}>
+                      {p.order}
+                    </button>
+                    {flagged.has(p.id) ? <span className="ml-1 font-bold text-fault" title="A finding names this part">!</span> : null}
+                  </td>
+                  <td className="figure px-2 py-1">
+                    {formatSize(w, unit)} × {formatSize(l, unit)}
+                  </td>
+                  <td className="figure px-2 py-1">{formatArea(p.areaMm2, unit)}</td>
+                  <td className="px-2 py-1">{p.held ? `Yes, ${HELD_BY_WORDS[p.holdBy]}` : 'No, held by nothing'}</td>
+                  <td className="figure px-2 py-1">{p.freedAtLine ? `line ${p.freedAtLine}` : p.tabs > 0 ? 'stays on tabs' : p.skinMm > 0 ? 'stays on the skin' : '—'}</td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      {parts.length === 0 ? <p className="px-3 py-2">No parts cut free of the sheet were found.</p> : null}
+    </section>
+  );
+}

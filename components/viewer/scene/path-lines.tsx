@@ -1,0 +1,92 @@
+'use client';
+// The whole path as one set of GPU buffers (positions, colours, dash distances, tags) shared
+// by two line-segment objects: the path already cut (full colour) and the path to come
+// (dimmed), split by each geometry's draw range, which every frame's playhead moves. A change
+// of colour mode rewrites the colour buffer in place; nothing else is ever rebuilt.
+import { useFrame } from '@react-three/fiber';
+import { useEffect, useMemo, useRef } from 'react';
+import * as THREE from 'three';
+import { colourPath, type ColourMode } from '@/lib/viewer/colour-map';
+import type { ViewerPath } from '@/lib/viewer/path-build';
+import { doneVertexCount } from '@/lib/viewer/playhead';
+import type { PlaybackStore } from '../playback-store';
+import { createPathMaterial, createSharedUniforms, MAX_TOOL_SLOTS } from './path-material';
+
+export interface PathFilters {
+  showRapids: boolean;
+  hiddenTools: ReadonlySet<number>;
+  zRange: [number, number];
+  onlyFindings: boolean;
+  markFindings: boolean;
+}
+
+/** the colour buffer rewritten in place for a colour mode (the GPU copy is refreshed once) */
+function applyColours(path: ViewerPath, mode: ColourMode, colour: THREE.BufferAttribute): void {
+  colourPath(path, mode, colour.array as Uint8Array);
+  colour.needsUpdate = true;
+}
+
+function applyFilters(shared: ReturnType<typeof createSharedUniforms>, filters: PathFilters, tools: number[], dashMm: number): void {
+  shared.uShowRapids.value = filters.showRapids ? 1 : 0;
+  shared.uOnlyFindings.value = filters.onlyFindings ? 1 : 0;
+  shared.uMarkFindings.value = filters.markFindings ? 1 : 0;
+  const hidden = shared.uToolHidden.value;
+  for (let i = 0; i < MAX_TOOL_SLOTS; i++) hidden[i] = filters.hiddenTools.has(tools[i]) ? 1 : 0;
+  shared.uZRange.value.set(filters.zRange[0] - 1e-6, filters.zRange[1] + 1e-6);
+  shared.uDashMm.value = dashMm;
+}
+
+export function PathLines({ path, store, mode, filters, dashMm }: { path: ViewerPath; store: PlaybackStore; mode: ColourMode; filters: PathFilters; dashMm: number }) {
+  const shared = useMemo(() => createSharedUniforms(), []);
+  const { done, ahead, colour } = useMemo(() => {
+    const position = new THREE.BufferAttribute(path.positions, 3);
+    const colourAttr = new THREE.BufferAttribute(new Uint8Array(path.positions.length), 3, true);
+    const dash = new THREE.BufferAttribute(path.dash, 1);
+    const tag = new THREE.BufferAttribute(path.tag, 2);
+    const make = () => {
+      const g = new THREE.BufferGeometry();
+      g.setAttribute('position', position);
+      g.setAttribute('rgb', colourAttr);
+      g.setAttribute('dash', dash);
+      g.setAttribute('tag', tag);
+      const b = path.bounds;
+      if (b) {
+        g.boundingBox = new THREE.Box3(new THREE.Vector3(b.minX, b.minY, b.minZ), new THREE.Vector3(b.maxX, b.maxY, b.maxZ));
+        g.boundingSphere = g.boundingBox.getBoundingSphere(new THREE.Sphere());
+      }
+      return g;
+    };
+    return { done: make(), ahead: make(), colour: colourAttr };
+  }, [path]);
+  const materials = useMemo(() => ({ done: createPathMaterial(shared, 0), ahead: createPathMaterial(shared, 0.72) }), [shared]);
+
+  useEffect(() => applyColours(path, mode, colour), [path, mode, colour]);
+  useEffect(() => applyFilters(shared, filters, path.tools, dashMm), [filters, shared, path, dashMm]);
+
+  useEffect(
+    () => () => {
+      done.dispose();
+      ahead.dispose();
+      materials.done.dispose();
+      materials.ahead.dispose();
+    },
+    [done, ahead, materials],
+  );
+
+  const last = useRef(-1);
+  useFrame(() => {
+    const snap = store.snapshot;
+    const count = doneVertexCount(path.moveSegStart, snap.move, store.fraction);
+    if (count === last.current) return;
+    last.current = count;
+    done.setDrawRange(0, count);
+    ahead.setDrawRange(count, Math.max(0, path.positions.length / 3 - count));
+  });
+
+  return (
+    <>
+      <lineSegments geometry={done} material={materials.done} frustumCulled={false} />
+      <lineSegments geometry={ahead} material={materials.ahead} frustumCulled={false} />
+    </>
+  );
+}

@@ -1,0 +1,169 @@
+// The path as the GPU draws it, built once in the worker from the move list and the planner's
+// clock: one buffer of line segments (two vertices each) for the whole program, arcs flattened
+// at the machine's chord tolerance (the same sagitta rule as the planner, lib/gcode
+// arcChordCount), and per move the index of its first segment, so playback maps a move to a
+// draw range without touching the geometry. Per move also its view kind (path-kinds.ts) and its
+// achieved speed: length ÷ the planner's time for it, as a share of the commanded feed.
+// Everything is a typed array, transferred out of the worker; no object per move.
+import { arcChordCount, arcPoint, type MoveList, type Xyz } from '@/lib/gcode';
+import { feedKind, ViewKind } from './path-kinds';
+
+export interface ViewerPath {
+  /** segment vertices, x y z per vertex, two vertices per segment (float32, mm, G54) */
+  positions: Float32Array;
+  /** per vertex: distance along a rapid move from its start (mm), −1 on every other move */
+  dash: Float32Array;
+  /** per vertex: [tool slot (index into tools), flags (bit 0 rapid, bit 1 a finding's line)] */
+  tag: Uint8Array;
+  /** per move m: its first segment; moveSegStart[count] = the segment count */
+  moveSegStart: Uint32Array;
+  /** per move: ViewKind */
+  viewKind: Uint8Array;
+  /** per move: achieved ÷ commanded speed, 0–1; NaN where it has no meaning (rapids, records) */
+  speedShare: Float32Array;
+  /** tool numbers in the order first used; tag's slot indexes this */
+  tools: number[];
+  /** box of every vertex, mm; null for a program without motion */
+  bounds: { minX: number; minY: number; minZ: number; maxX: number; maxY: number; maxZ: number } | null;
+}
+
+export const TAG_RAPID = 1;
+export const TAG_FINDING = 2;
+
+const p: Xyz = { x: 0, y: 0, z: 0 };
+
+/** true when `line` is in the sorted list */
+function hasLine(sorted: Uint32Array, line: number): boolean {
+  let lo = 0;
+  let hi = sorted.length - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    const v = sorted[mid];
+    if (v === line) return true;
+    if (v < line) lo = mid + 1;
+    else hi = mid - 1;
+  }
+  return false;
+}
+
+/** segments of move i: chords for an arc, 1 for a straight move, 0 for a record */
+function segmentCount(moves: MoveList, i: number, arcIndex: number, toleranceMm: number): number {
+  const k = moves.kind[i];
+  if (k === 2) return arcChordCount(moves.arcs.radius[arcIndex], moves.arcs.sweep[arcIndex], toleranceMm);
+  return k <= 1 ? 1 : 0;
+}
+
+export function buildViewerPath(
+  moves: MoveList,
+  cumulativeS: Float64Array,
+  options: { stockTopZ: number; chordToleranceMm: number; findingLines: Uint32Array },
+): ViewerPath {
+  const n = moves.count;
+  const tol = options.chordToleranceMm;
+  const moveSegStart = new Uint32Array(n + 1);
+  let segs = 0;
+  for (let i = 0, a = 0; i < n; i++) {
+    moveSegStart[i] = segs;
+    segs += segmentCount(moves, i, a, tol);
+    if (moves.kind[i] === 2) a++;
+  }
+  moveSegStart[n] = segs;
+
+  const positions = new Float32Array(segs * 6);
+  const dash = new Float32Array(segs * 2);
+  const tag = new Uint8Array(segs * 4);
+  const viewKind = new Uint8Array(n);
+  const speedShare = new Float32Array(n);
+  const toolSlot = new Map<number, number>();
+  const tools: number[] = [];
+  const topZ = options.stockTopZ;
+  let minX = Infinity, minY = Infinity, minZ = Infinity, maxX = -Infinity, maxY = -Infinity, maxZ = -Infinity;
+
+  let x0 = moves.startX, y0 = moves.startY, z0 = moves.startZ;
+  let s = 0; // segment being written
+  let arc = 0;
+  for (let i = 0; i < n; i++) {
+    const k = moves.kind[i];
+    const x1 = moves.x[i], y1 = moves.y[i], z1 = moves.z[i];
+    const dt = cumulativeS[i] - (i > 0 ? cumulativeS[i - 1] : 0);
+    if (k > 2) {
+      viewKind[i] = ViewKind.still;
+      speedShare[i] = Number.NaN;
+      continue;
+    }
+    const toolNo = moves.tool[i];
+    let slot = toolSlot.get(toolNo);
+    if (slot === undefined) {
+      slot = Math.min(tools.length, 255);
+      toolSlot.set(toolNo, slot);
+      tools.push(toolNo);
+    }
+    const flags = (k === 0 ? TAG_RAPID : 0) | (hasLine(options.findingLines, moves.line[i]) ? TAG_FINDING : 0);
+    const chords = k === 2 ? moveSegStart[i + 1] - moveSegStart[i] : 1;
+    let length = 0;
+    let px = x0, py = y0, pz = z0;
+    let lowZ = z0 < z1 ? z0 : z1;
+    for (let c = 1; c <= chords; c++) {
+      let qx = x1, qy = y1, qz = z1;
+      if (k === 2 && c < chords) {
+        arcPoint(moves, arc, c / chords, p);
+        qx = p.x;
+        qy = p.y;
+        qz = p.z;
+      }
+      const segLen = Math.sqrt((qx - px) * (qx - px) + (qy - py) * (qy - py) + (qz - pz) * (qz - pz));
+      const o = s * 6;
+      positions[o] = px;
+      positions[o + 1] = py;
+      positions[o + 2] = pz;
+      positions[o + 3] = qx;
+      positions[o + 4] = qy;
+      positions[o + 5] = qz;
+      dash[s * 2] = k === 0 ? length : -1;
+      dash[s * 2 + 1] = k === 0 ? length + segLen : -1;
+      const t = s * 4;
+      tag[t] = slot;
+      tag[t + 1] = flags;
+      tag[t + 2] = slot;
+      tag[t + 3] = flags;
+      length += segLen;
+      if (qz < lowZ) lowZ = qz;
+      if (qx < minX) minX = qx;
+      if (qx > maxX) maxX = qx;
+      if (qy < minY) minY = qy;
+      if (qy > maxY) maxY = qy;
+      if (qz < minZ) minZ = qz;
+      if (qz > maxZ) maxZ = qz;
+      px = qx;
+      py = qy;
+      pz = qz;
+      s++;
+    }
+    if (x0 < minX) minX = x0;
+    if (x0 > maxX) maxX = x0;
+    if (y0 < minY) minY = y0;
+    if (y0 > maxY) maxY = y0;
+    if (z0 < minZ) minZ = z0;
+    if (z0 > maxZ) maxZ = z0;
+    if (k === 0) {
+      viewKind[i] = ViewKind.rapid;
+      speedShare[i] = Number.NaN;
+    } else {
+      viewKind[i] = k === 2 ? (lowZ < topZ ? ViewKind.cut : ViewKind.air) : feedKind(x0, y0, z0, x1, y1, z1, topZ);
+      const feed = moves.feed[i];
+      // mm/s reached over mm/s asked; a move the planner gave no time (zero length) counts as full speed
+      speedShare[i] = feed > 0 && dt > 0 && length > 0 ? Math.min(1, length / dt / (feed / 60)) : 1;
+    }
+    if (k === 2) arc++;
+    x0 = x1;
+    y0 = y1;
+    z0 = z1;
+  }
+  const bounds = segs > 0 ? { minX, minY, minZ, maxX, maxY, maxZ } : null;
+  return { positions, dash, tag, moveSegStart, viewKind, speedShare, tools, bounds };
+}
+
+/** every buffer of the path, once each, for postMessage's transfer list */
+export function pathTransferables(path: ViewerPath): ArrayBuffer[] {
+  return [path.positions, path.dash, path.tag, path.moveSegStart, path.viewKind, path.speedShare].map((a) => a.buffer as ArrayBuffer);
+}

@@ -1,0 +1,118 @@
+// One program opened in the viewer: the browser worker's whole job, kept out of the worker
+// file so it is tested in Node. Bytes → the same checks as an upload (lib/gcode program-text)
+// → SHA-256 → runEstimate (interpret, plan, through-cut checks: the server's and the CLI's
+// code) → the path buffers → the result, whose every per-move array goes back transferred.
+import { loadAnalysis } from '@/lib/analysis';
+import { runEstimate, type EstimateJob } from '@/lib/estimate/run-estimate';
+import { checkProgramBytes } from '@/lib/gcode/program-text';
+import type { ArcTable, MoveList } from '@/lib/gcode/move-list';
+import type { EstimateReport } from '@/lib/kinematics/estimate-report';
+import { stockTopZ } from '@/lib/kinematics/stock-top';
+import type { MachineProfile } from '@/lib/validation/machine-profile';
+import { lineStarts } from './line-index';
+import { buildViewerPath, pathTransferables, type ViewerPath } from './path-build';
+
+export interface ViewerInput {
+  name: string;
+  profile: MachineProfile;
+  job: EstimateJob;
+}
+
+export interface ViewerProgress {
+  /** 0–100 */
+  percent: number;
+  /** what is being done, in words */
+  stage: string;
+}
+
+export interface ViewerResult {
+  report: EstimateReport;
+  moves: MoveList;
+  cumulativeS: Float64Array;
+  path: ViewerPath;
+  /** byte offsets of the source lines (line-index.ts) */
+  lineStarts: Uint32Array;
+  stockTopZ: number;
+  sha256: string;
+  timingsMs: { read: number; engine: number; path: number };
+}
+
+export class ViewerInputError extends Error {}
+
+function hex(buffer: ArrayBuffer): string {
+  return Array.from(new Uint8Array(buffer), (b) => b.toString(16).padStart(2, '0')).join('');
+}
+
+/** share of the bar each stage takes (rough shares of the time on the generated nest) */
+const BAR = { read: 3, interpret: 55, plan: 20, checks: 17, path: 5 } as const;
+
+export async function openProgram(bytes: Uint8Array, input: ViewerInput, onProgress: (p: ViewerProgress) => void): Promise<ViewerResult> {
+  const t0 = performance.now();
+  const checked = checkProgramBytes(bytes);
+  if (!checked.ok) throw new ViewerInputError(`This file cannot be shown: ${checked.message}`);
+  const sha256 = hex(await crypto.subtle.digest('SHA-256', bytes as Uint8Array<ArrayBuffer>));
+  const starts = lineStarts(bytes);
+  await loadAnalysis();
+  onProgress({ percent: BAR.read, stage: 'Reading the program' });
+  const t1 = performance.now();
+  let last = -1;
+  const report = (percent: number, stage: string) => {
+    const p = Math.floor(percent);
+    if (p !== last) {
+      last = p;
+      onProgress({ percent: p, stage });
+    }
+  };
+  const run = runEstimate(
+    checked.text,
+    input.profile,
+    input.job,
+    { name: input.name, sha256 },
+    (stage) => {
+      if (stage === 'interpreted') report(BAR.read + BAR.interpret, 'Planning the motion');
+      else if (stage === 'planned') report(BAR.read + BAR.interpret + BAR.plan, 'Checking through-cuts and hold-down');
+      else report(100 - BAR.path, 'Building the path');
+    },
+    {
+      onLines: (done, total) => report(BAR.read + (BAR.interpret * done) / Math.max(1, total), 'Reading the G-code'),
+      onMoves: (done, total) => report(BAR.read + BAR.interpret + (BAR.plan * done) / Math.max(1, total), 'Planning the motion'),
+    },
+  );
+  const t2 = performance.now();
+  const topZ = stockTopZ(input.job.zero, input.job.sheet?.thicknessMm);
+  const findingLines = Uint32Array.from(new Set(run.report.findings.map((f) => f.line).filter((l) => l > 0))).sort();
+  const path = buildViewerPath(run.interpretation.moves, run.estimate.cumulativeS, {
+    stockTopZ: topZ,
+    chordToleranceMm: input.profile.chordToleranceMm,
+    findingLines,
+  });
+  const t3 = performance.now();
+  onProgress({ percent: 100, stage: 'Drawing' });
+  return {
+    report: run.report,
+    moves: run.interpretation.moves,
+    cumulativeS: run.estimate.cumulativeS,
+    path,
+    lineStarts: starts,
+    stockTopZ: topZ,
+    sha256,
+    timingsMs: { read: Math.round(t1 - t0), engine: Math.round(t2 - t1), path: Math.round(t3 - t2) },
+  };
+}
+
+function arcBuffers(a: ArcTable): ArrayBuffer[] {
+  return [a.move, a.cx, a.cy, a.cz, a.radius, a.sweep, a.plane].map((x) => x.buffer as ArrayBuffer);
+}
+
+/** every typed array of the result once, for the transfer list (shared buffers listed once) */
+export function resultTransferables(r: ViewerResult): ArrayBuffer[] {
+  const m = r.moves;
+  const all = [
+    ...[m.x, m.y, m.z, m.kind, m.flags, m.tool, m.feed, m.spindle, m.aux, m.line].map((x) => x.buffer as ArrayBuffer),
+    ...arcBuffers(m.arcs),
+    r.cumulativeS.buffer as ArrayBuffer,
+    r.lineStarts.buffer as ArrayBuffer,
+    ...pathTransferables(r.path),
+  ];
+  return [...new Set(all)];
+}
