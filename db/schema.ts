@@ -43,6 +43,12 @@ export interface EstimateSettingsDoc {
   zero: (typeof Z_ZEROS)[number];
   hold: (typeof HOLD_DOWNS)[number] | null;
   vacuumKpa: number | null;
+  /**
+   * the level the machine's own vacuum table holds (machines.default_vacuum_kpa) when the
+   * estimate was asked for: the hold-down comparison analyses vacuum at it too. Missing on
+   * estimates made before the comparison existed.
+   */
+  machineVacuumKpa?: number | null;
 }
 
 // MariaDB stores JSON as LONGTEXT with a validity check; depending on server and driver
