@@ -21,7 +21,9 @@ export const PUBLIC = 'public' as const;
 
 export interface Boundary {
   label: string;
-  body: unknown;
+  body?: unknown;
+  /** the body as sent, for what JSON.stringify cannot write (1e400 parses as Infinity) */
+  raw?: string;
   /** true: the value is inside the limit and reaches the data; a field name: refused there (422) */
   expect: true | string;
 }
@@ -78,7 +80,7 @@ const job = {
 };
 
 const jobChecks: BodyChecks = {
-  wrongTypes: { body: { ...job, title: 42, customerId: 'Marlow', sheetWidthMm: 'wide', quantity: [3], holdDown: 7 }, fields: ['customerId', 'holdDown', 'quantity', 'sheetWidthMm', 'title'] },
+  wrongTypes: { body: { ...job, title: 42, customerId: 'Marlow', sheetWidthMm: 'wide', quantity: 'many', holdDown: 7 }, fields: ['customerId', 'holdDown', 'quantity', 'sheetWidthMm', 'title'] },
   boundaries: [
     { label: 'a 6000 mm sheet', body: { ...job, sheetWidthMm: 6000, sheetLengthMm: 6000 }, expect: true },
     { label: 'a 6000.5 mm sheet', body: { ...job, sheetLengthMm: 6000.5 }, expect: 'sheetLengthMm' },
@@ -92,6 +94,8 @@ const jobChecks: BodyChecks = {
     { label: 'sheet width "Infinity"', body: { ...job, sheetWidthMm: 'Infinity' }, expect: 'sheetWidthMm' },
     { label: 'quantity "Infinity"', body: { ...job, quantity: 'Infinity' }, expect: 'quantity' },
     { label: 'vacuum "Infinity"', body: { ...job, vacuumKpa: 'Infinity' }, expect: 'vacuumKpa' },
+    { label: 'quantity 1e400 (JSON.parse makes it Infinity)', raw: JSON.stringify(job).replace('"quantity":40', '"quantity":1e400'), expect: 'quantity' },
+    { label: 'sheet width -1e400', raw: JSON.stringify(job).replace('"sheetWidthMm":1220', '"sheetWidthMm":-1e400'), expect: 'sheetWidthMm' },
   ],
 };
 

@@ -105,6 +105,8 @@ export const calls: DataCall[] = [];
 /** What a spy answers: per function name, a value or a function of the call's arguments. */
 export type Answers = Record<string, unknown>;
 let answers: Answers = {};
+/** when set, every data function throws it (an unexpected failure: the database gone, a bug) */
+let failure: unknown = null;
 
 /** A stand-in row: enough fields for any handler to build its answer from. */
 export function standInRow(): Record<string, unknown> {
@@ -138,6 +140,12 @@ export function signInAs(role: Role | null, extra: Partial<SessionUser> = {}): v
 export function reset(next: Answers = {}): void {
   calls.length = 0;
   answers = next;
+  failure = null;
+}
+
+/** Every data function throws `error` until the next reset(). */
+export function failWith(error: unknown): void {
+  failure = error;
 }
 
 /** Calls that reached the data (queries, storage, mail, the estimate queue). */
@@ -154,6 +162,7 @@ function spied(module: string, real: Record<string, unknown>): Record<string, un
     }
     out[name] = vi.fn(async (...args: unknown[]) => {
       calls.push({ module, name, args });
+      if (failure !== null && !RUN_ON_REFUSAL.has(name)) throw failure;
       const answer = name in answers ? answers[name] : standInRow();
       return typeof answer === 'function' ? (answer as (...a: unknown[]) => unknown)(...args) : answer;
     });
