@@ -61,8 +61,9 @@ export function ProgramPageViewer({ programId, version, name, profile, job, stor
     fetch(`/api/estimates/${stored.id}`, { cache: 'no-store' })
       .then(async (res) => {
         if (!res.ok) throw new Error(await readError(res));
-        const body = (await res.json()) as { report?: EstimateReport };
-        if (live) setStoredReport({ status: 'ok', value: body.report ?? null });
+        // GET /api/estimates/:id puts the stored report inside the estimate
+        const body = (await res.json()) as { estimate?: { report?: EstimateReport } };
+        if (live) setStoredReport({ status: 'ok', value: body.estimate?.report ?? null });
       })
       .catch((err: Error) => live && setStoredReport({ status: 'failed', message: err.message }));
     return () => {
@@ -93,6 +94,8 @@ export function ProgramPageViewer({ programId, version, name, profile, job, stor
             <Notice tone="fault" title="The stored report could not be read." role="alert">
               {storedReport.message}
             </Notice>
+          ) : storedReport.status === 'ok' && !storedReport.value ? (
+            <p>The stored estimate has no report to compare with.</p>
           ) : !result || storedReport.status === 'loading' ? (
             <p className="text-ink-soft">Comparing once the view has its figures…</p>
           ) : comparison?.identical ? (
