@@ -8,12 +8,14 @@
 // (cores − 1 worker threads per process, at least one). Printed per configuration: the batch
 // wall time, estimates per minute, the per-estimate worker time (compute_ms: read from
 // storage, engine, report stored) and the per-estimate wall time (upload answered → stored,
-// queueing included), and how many estimates each process stored. Before the timed batch each
-// process computes one small warm-up estimate (untimed). Not asserted: on a 2-core
-// box two processes have little to gain; the point is that the work is shared and is not
-// slower. BENCH_CLUSTER_LINES, BENCH_CLUSTER_PROGRAMS and BENCH_CLUSTER_ROUNDS (rounds of
-// the pair, alternating, best of each taken) change the batch.
-import { existsSync } from 'node:fs';
+// queueing included), and how many estimates each process stored. Before the timed batch
+// each process is sent BENCH_CLUSTER_WARM_UP (5) small warm-up estimates, untimed. Not
+// asserted: on a 2-core box two processes have little to gain; the point is that the work
+// is shared and is not slower. BENCH_CLUSTER_LINES, BENCH_CLUSTER_PROGRAMS and
+// BENCH_CLUSTER_ROUNDS (rounds of the pair, alternating, best of each taken) change the
+// batch; BENCH_CLUSTER_LOG_DIR keeps the processes' output. The load average printed after
+// each batch shows whether something else shared the box.
+import { existsSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { inArray } from 'drizzle-orm';
@@ -30,6 +32,8 @@ const FIRST_PORT = Number(process.env.BENCH_CLUSTER_PORT ?? 3131);
 const LINES = Number(process.env.BENCH_CLUSTER_LINES ?? 100_000);
 const PROGRAMS = Number(process.env.BENCH_CLUSTER_PROGRAMS ?? 20);
 const ROUNDS = Number(process.env.BENCH_CLUSTER_ROUNDS ?? 1);
+/** untimed small estimates per process before the batch */
+const WARM_UP = Number(process.env.BENCH_CLUSTER_WARM_UP ?? 5);
 
 interface BatchResult {
   processes: number;
@@ -39,6 +43,8 @@ interface BatchResult {
   computeMs: number[];
   latencyMs: number[];
   storedBy: number[];
+  /** the 1-minute load average when the batch ended */
+  loadAfter: number;
 }
 
 async function batch(processes: number, programs: { name: string; text: string }[]): Promise<BatchResult> {
@@ -53,20 +59,23 @@ async function batch(processes: number, programs: { name: string; text: string }
     shopId = shop.shopId;
     cluster = await startCluster(processes, FIRST_PORT, { DATABASE_URL: scratch.url });
     const { jar } = await signInAt(cluster.processes[0].url, shop.users.programmer.email, PASSWORD);
-    // warm-up, untimed: one small estimate uploaded to each process, so each worker thread has
-    // loaded and compiled the engine (a thread's first estimate is the slowest) and each
-    // process has served an upload; a deployment that has been up a while is in this state
-    const warm: number[] = [];
-    for (const [i, p] of cluster.processes.entries()) {
-      const form = new FormData();
-      form.append('file', new Blob([generateProgram(20_000, 1000 + i)]), `warm-up-${i + 1}.nc`);
-      const r = await fetch(`${p.url}/api/jobs/${shop.jobId}/programs`, { method: 'POST', headers: { cookie: jar.header() }, body: form });
-      warm.push(((await r.json()) as { programs: { estimate: { id: number } }[] }).programs[0].estimate.id);
-    }
-    for (;;) {
-      const w = await t.db.select({ status: s.estimates.status }).from(s.estimates).where(inArray(s.estimates.id, warm));
-      if (w.every((r) => r.status === 'done')) break;
-      await sleep(250);
+    // warm-up, untimed: small estimates uploaded to each process, one after the other, so each
+    // worker thread has loaded and compiled the engine (a thread's first few estimates are the
+    // slowest: 1.5–3 s against 0.3 s later for 100,000 lines, as the JIT warms up) and each
+    // process has served uploads; a deployment that has been up a while is in this state
+    for (let round = 0; round < WARM_UP; round++) {
+      const warm: number[] = [];
+      for (const [i, p] of cluster.processes.entries()) {
+        const form = new FormData();
+        form.append('file', new Blob([generateProgram(20_000, 1000 + round * 10 + i)]), `warm-up-${round + 1}-${i + 1}.nc`);
+        const r = await fetch(`${p.url}/api/jobs/${shop.jobId}/programs`, { method: 'POST', headers: { cookie: jar.header() }, body: form });
+        warm.push(((await r.json()) as { programs: { estimate: { id: number } }[] }).programs[0].estimate.id);
+      }
+      for (;;) {
+        const w = await t.db.select({ status: s.estimates.status }).from(s.estimates).where(inArray(s.estimates.id, warm));
+        if (w.every((r) => r.status === 'done')) break;
+        await sleep(100);
+      }
     }
     await sleep(1000);
 
@@ -111,9 +120,12 @@ async function batch(processes: number, programs: { name: string; text: string }
       computeMs: rows.map((r) => r.computeMs ?? NaN),
       latencyMs: [...doneAt].map(([id, at]) => at - answeredAt.get(id)!),
       storedBy,
+      loadAfter: os.loadavg()[0],
     };
   } finally {
     await cluster?.stop();
+    // BENCH_CLUSTER_LOG_DIR=DIR keeps what the processes printed (each estimate's worker phases)
+    if (cluster && process.env.BENCH_CLUSTER_LOG_DIR) writeFileSync(path.join(process.env.BENCH_CLUSTER_LOG_DIR, `cluster-${processes}-${Date.now()}.log`), cluster.output());
     if (shopId) await removeEstimateShop(t.db, shopId).catch(() => {});
     await t.close();
     await scratch.drop();
@@ -128,7 +140,7 @@ function report(r: BatchResult): string {
     `${r.processes} process${r.processes > 1 ? 'es' : ''}: batch ${sec(r.wallMs)} (uploads all answered after ${sec(r.uploadsMs)}), ` +
     `${r.perMinute.toFixed(1)} estimates/min; per estimate: worker ${sec(median(r.computeMs))} median (mean ${sec(mean(r.computeMs))}, ` +
     `max ${sec(Math.max(...r.computeMs))}), upload answered → stored ${sec(median(r.latencyMs))} median (max ${sec(Math.max(...r.latencyMs))}); ` +
-    `stored by each process: ${r.storedBy.join(' + ')}`
+    `stored by each process: ${r.storedBy.join(' + ')}; load average after: ${r.loadAfter.toFixed(1)} (anything else running on the box shows here)`
   );
 }
 

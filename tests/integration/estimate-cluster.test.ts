@@ -152,8 +152,9 @@ describe('two processes, one database and one bucket', () => {
 
   it('a process killed mid-estimate: the other finishes it once the lease has run out, and the killed one stored nothing', async () => {
     const { processes } = cluster!;
-    // large enough to be still computing when its process is killed
-    const { estimateId } = await upload(processes[0], 'display-sides-nest.nc', generateProgram(300_000, 17));
+    // large enough to be still computing when its process is killed (about 1 s of worker time per
+    // 500,000 lines here, and the kill follows the claim within a few polls of 25 ms)
+    const { estimateId } = await upload(processes[0], 'display-sides-nest.nc', generateProgram(500_000, 17));
     const running = await until('a process to claim the estimate', async () => {
       const [r] = await t.db.select().from(s.estimates).where(eq(s.estimates.id, estimateId));
       return r.status === 'running' && r.leaseOwner ? r : undefined;
