@@ -96,9 +96,7 @@ export interface PageRule {
 /** In navigation order. */
 export const PAGES = {
   jobs: { href: '/jobs', label: 'Jobs', needs: 'jobs:read' },
-  dashboard: { href: '/dashboard', label: 'Dashboard', needs: 'dashboard:read' },
   preview: { href: '/preview', label: 'Preview', needs: 'programs:read' },
-  runs: { href: '/runs', label: 'Runs', needs: 'runs:read' },
   machines: { href: '/machines', label: 'Machines', needs: 'machines:read' },
   materials: { href: '/materials', label: 'Materials', needs: 'materials:read' },
   customers: { href: '/customers', label: 'Customers', needs: 'customers:read' },

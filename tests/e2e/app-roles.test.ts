@@ -34,10 +34,10 @@ async function freshPage() {
 
 // Expectations from the role table as the product states it (lib/auth/roles.ts header).
 const ROLES = [
-  { email: 'ada@alder-finch.example', role: 'Admin', nav: ['Jobs', 'Machines', 'Materials', 'Customers', 'Users'], forbidden: null },
-  { email: 'priya@alder-finch.example', role: 'Programmer', nav: ['Jobs', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
-  { email: 'tomas@alder-finch.example', role: 'Estimator', nav: ['Jobs', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
-  { email: 'lena@alder-finch.example', role: 'Operator', nav: ['Jobs', 'Machines', 'Materials'], forbidden: '/customers' },
+  { email: 'ada@alder-finch.example', role: 'Admin', nav: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'], forbidden: null },
+  { email: 'priya@alder-finch.example', role: 'Programmer', nav: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
+  { email: 'tomas@alder-finch.example', role: 'Estimator', nav: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
+  { email: 'lena@alder-finch.example', role: 'Operator', nav: ['Jobs', 'Preview', 'Machines', 'Materials'], forbidden: '/customers' },
 ] as const;
 
 describe('signing in as each demo role', () => {

@@ -8,6 +8,8 @@
 // corrected): machines:write and materials:write for the programmer, where PRODUCT.md gives
 // machine profiles and materials to the admin's set-up alone. estimates:write for the
 // estimator (asking for an estimate on another machine) is inferred, not stated there.
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { ACTIONS, canDo, canSee, homeFor, PAGES, pagesFor, type Action } from '@/lib/auth/roles';
 import { ROLES, type Role } from '@/lib/validation/enums';
@@ -68,10 +70,10 @@ describe('role table', () => {
 
 describe('navigation', () => {
   const expected: Record<Role, string[]> = {
-    admin: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'],
-    programmer: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'],
-    estimator: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'],
-    operator: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials'],
+    admin: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'],
+    programmer: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'],
+    estimator: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'],
+    operator: ['Jobs', 'Preview', 'Machines', 'Materials'],
   };
 
   it.each(ROLES)('%s sees exactly its pages, in navigation order', (role) => {
@@ -81,6 +83,12 @@ describe('navigation', () => {
   it('only the admin sees the users page, at /admin/users', () => {
     expect(PAGES.users.href).toBe('/admin/users');
     expect(ROLES.filter((r) => canSee(r, 'users'))).toEqual(['admin']);
+  });
+
+  it('every page in the navigation exists under app/(shop) (a link to a missing page is a 404 for the user)', () => {
+    for (const page of Object.values(PAGES)) {
+      expect(existsSync(join(process.cwd(), 'app', '(shop)', ...page.href.split('/').filter(Boolean), 'page.tsx')), page.href).toBe(true);
+    }
   });
 
   it('every role starts on the jobs page', () => {
