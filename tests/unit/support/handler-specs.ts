@@ -322,6 +322,115 @@ export const ROUTE_SPECS: Record<string, RouteSpec> = {
       ],
     },
   },
+  // runs (issue 15): limits from lib/validation/runs.ts (7 days of seconds, 1000 sheets, 2000-character notes)
+  'GET /api/runs': {
+    action: 'runs:read',
+    query: '?programId=5&version=2&perPage=50',
+    badQueries: [
+      { query: '?perPage=30', field: 'perPage' },
+      { query: '?status=stopped', field: 'status' },
+      { query: '?machineId=two', field: 'machineId' },
+      { query: '?from=2026-12', field: 'from' },
+    ],
+  },
+  'POST /api/runs': {
+    action: 'runs:write',
+    body: { programId: 5, version: 1, machineId: 2 },
+    status: 201,
+    input: {
+      wrongTypes: { body: { programId: '5', version: true, machineId: [2] }, fields: ['machineId', 'programId', 'version'] },
+      boundaries: [
+        { label: 'machine id 2^31 − 1', body: { programId: 5, version: 1, machineId: 2_147_483_647 }, expect: true },
+        { label: 'machine id 2^31', body: { programId: 5, version: 1, machineId: 2_147_483_648 }, expect: 'machineId' },
+        { label: 'version 0', body: { programId: 5, version: 0, machineId: 2 }, expect: 'version' },
+        { label: 'version 1e400 (Infinity)', raw: '{"programId":5,"version":1e400,"machineId":2}', expect: 'version' },
+      ],
+    },
+  },
+  'POST /api/runs/manual': {
+    action: 'runs:write',
+    body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-12-03T08:30', durationSeconds: 2700, sheetsCut: 3, interrupted: false },
+    status: 201,
+    input: {
+      wrongTypes: {
+        body: { programId: 5, version: 1, machineId: 2, startedAt: 20261203, durationSeconds: '45 min', sheetsCut: 'three', interrupted: 'no' },
+        fields: ['durationSeconds', 'interrupted', 'sheetsCut', 'startedAt'],
+      },
+      boundaries: [
+        { label: 'a start and an end', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-12-03T08:30:00Z', finishedAt: '2026-12-03T09:15:00Z', sheetsCut: 3 }, expect: true },
+        { label: '31 February', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-02-31T08:30', durationSeconds: 60, sheetsCut: 1 }, expect: 'startedAt' },
+        { label: 'an end before the start', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-12-03T09:15', finishedAt: '2026-12-03T08:30', sheetsCut: 1 }, expect: 'finishedAt' },
+        { label: 'neither end nor duration', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-12-03T08:30', sheetsCut: 1 }, expect: 'durationSeconds' },
+        { label: 'both end and duration', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-12-03T08:30', finishedAt: '2026-12-03T09:00', durationSeconds: 1800, sheetsCut: 1 }, expect: 'durationSeconds' },
+        { label: '7 days of seconds', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-11-20T08:30', durationSeconds: 604_800, sheetsCut: 1 }, expect: true },
+        { label: '7 days and 1 s', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-11-20T08:30', durationSeconds: 604_801, sheetsCut: 1 }, expect: 'durationSeconds' },
+        { label: 'a run ending next year', body: { programId: 5, version: 1, machineId: 2, startedAt: '2099-01-04T08:30', durationSeconds: 60, sheetsCut: 1 }, expect: 'startedAt' },
+        { label: '0 sheets, not interrupted', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-12-03T08:30', durationSeconds: 60, sheetsCut: 0 }, expect: 'sheetsCut' },
+        { label: '0 sheets, interrupted', body: { programId: 5, version: 1, machineId: 2, startedAt: '2026-12-03T08:30', durationSeconds: 60, sheetsCut: 0, interrupted: true }, expect: true },
+      ],
+    },
+  },
+  'GET /api/runs/[runId]': { action: 'runs:read' },
+  'PATCH /api/runs/[runId]': {
+    action: 'runs:write',
+    body: { actualSeconds: 2712, reason: 'The timer ran on over lunch.' },
+    note: 'who may correct which run (own run on the day; runs:correct-any for any) is decided in correctRun: tests/unit/runs/correct-rule.test.ts and tests/integration/runs.test.ts',
+    input: {
+      wrongTypes: { body: { actualSeconds: 'long', sheetsCut: 2.5, interrupted: 'yes', reason: 4 }, fields: ['actualSeconds', 'interrupted', 'reason', 'sheetsCut'] },
+      boundaries: [
+        { label: 'a reason only', body: { reason: 'Checked the figures.' }, expect: '_form' },
+        { label: 'a 500-character reason', body: { notes: 'Sheet 2 re-cut.', reason: chars(500) }, expect: true },
+        { label: 'a 501-character reason', body: { notes: 'Sheet 2 re-cut.', reason: chars(501) }, expect: 'reason' },
+        { label: '2000-character notes', body: { notes: chars(2000), reason: 'Longer note.' }, expect: true },
+        { label: '2001-character notes', body: { notes: chars(2001), reason: 'Longer note.' }, expect: 'notes' },
+        { label: '1000 sheets', body: { sheetsCut: 1000, reason: 'Recount.' }, expect: true },
+        { label: '1001 sheets', body: { sheetsCut: 1001, reason: 'Recount.' }, expect: 'sheetsCut' },
+      ],
+    },
+  },
+  'POST /api/runs/[runId]/pause': { action: 'runs:write', note: 'the run’s own operator or an admin drives its timer: moveTimer in db/queries/runs.ts, tests/integration/runs.test.ts' },
+  'POST /api/runs/[runId]/resume': { action: 'runs:write', note: 'the run’s own operator or an admin drives its timer: moveTimer in db/queries/runs.ts, tests/integration/runs.test.ts' },
+  'POST /api/runs/[runId]/finish': {
+    action: 'runs:write',
+    body: { sheetsCut: 4, interrupted: false, notes: 'Sheet 3 had a warp at one corner.' },
+    input: {
+      wrongTypes: { body: { sheetsCut: '4', interrupted: 1, notes: 5 }, fields: ['interrupted', 'notes', 'sheetsCut'] },
+      boundaries: [
+        { label: '0 sheets, not interrupted', body: { sheetsCut: 0, interrupted: false }, expect: 'sheetsCut' },
+        { label: '0 sheets, interrupted', body: { sheetsCut: 0, interrupted: true }, expect: true },
+        { label: '-1 sheets', body: { sheetsCut: -1, interrupted: true }, expect: 'sheetsCut' },
+        { label: '1.5 sheets', body: { sheetsCut: 1.5 }, expect: 'sheetsCut' },
+        { label: '"Infinity" sheets', body: { sheetsCut: 'Infinity' }, expect: 'sheetsCut' },
+      ],
+    },
+  },
+  'POST /api/runs/[runId]/void': {
+    action: 'runs:correct-any',
+    body: { reason: 'Started on the wrong program.' },
+    input: {
+      wrongTypes: { body: { reason: false }, fields: ['reason'] },
+      boundaries: [
+        { label: 'a blank reason', body: { reason: '   ' }, expect: 'reason' },
+        { label: 'a 500-character reason', body: { reason: chars(500) }, expect: true },
+        { label: 'a 501-character reason', body: { reason: chars(501) }, expect: 'reason' },
+      ],
+    },
+  },
+  'GET /api/machines/[machineId]/calibration': { action: 'runs:read' },
+  'POST /api/machines/[machineId]/calibration': {
+    action: 'calibration:apply',
+    body: { suggestedFactor: 1.084 },
+    status: 201,
+    input: {
+      wrongTypes: { body: { suggestedFactor: '1.084' }, fields: ['suggestedFactor'] },
+      boundaries: [
+        { label: 'factor 10', body: { suggestedFactor: 10 }, expect: true },
+        { label: 'factor 10.001', body: { suggestedFactor: 10.001 }, expect: 'suggestedFactor' },
+        { label: 'factor 0', body: { suggestedFactor: 0 }, expect: 'suggestedFactor' },
+        { label: 'factor 1e400 (Infinity)', raw: '{"suggestedFactor":1e400}', expect: 'suggestedFactor' },
+      ],
+    },
+  },
   'GET /api/users': { action: 'users:read' },
   'POST /api/users': {
     action: 'users:write',
