@@ -14,7 +14,7 @@ import 'server-only';
 import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db } from '@/db/client';
 import { estimates, jobEvents, jobs, machines, programs, programVersions, type EstimateSettingsDoc, type Job, type Program } from '@/db/schema';
-import { canonicalJson, jobEstimateSettings, requestEstimate, type DbTx } from '@/lib/estimate-server';
+import { canonicalJson, jobEstimateSettings, jobPartOfSettings, requestEstimate, type DbTx } from '@/lib/estimate-server';
 import type { EstimateStatus } from '@/lib/validation/enums';
 
 export interface UploadedFile {
@@ -211,12 +211,12 @@ function strip(hit: EstimateHit): EstimateSummary {
 
 /** The estimates that belong to a version of `programId` with these bytes (see the head comment). */
 function estimatesFor(hits: EstimateHit[], programId: number, sha256: string, jobSettings: string): EstimateHit[] {
-  return hits.filter((h) => h.sha256 === sha256 && (h.programId === programId || canonicalJson(h.settings) === jobSettings));
+  return hits.filter((h) => h.sha256 === sha256 && (h.programId === programId || canonicalJson(jobPartOfSettings(h.settings)) === jobSettings));
 }
 
 /** The one a list shows: the newest made with the job's current settings, else the newest. */
 function latestOf(hits: EstimateHit[], jobSettings: string): EstimateSummary | null {
-  const current = hits.find((h) => canonicalJson(h.settings) === jobSettings) ?? hits[0];
+  const current = hits.find((h) => canonicalJson(jobPartOfSettings(h.settings)) === jobSettings) ?? hits[0];
   return current ? strip(current) : null;
 }
 

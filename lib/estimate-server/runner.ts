@@ -9,7 +9,8 @@ import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import type { Db } from '@/db/client';
 import { claimEstimates, completeEstimate, failEstimate, releaseEstimates, renewLeases, requeueDeadLocalOwners, setProgress, type ClaimedEstimate } from './queue';
-import { reportKeyFor, type EstimateTask, type EstimateTaskOutcome } from './task';
+import { setHoldMethodsKey } from './hold-methods-key';
+import { holdMethodsKeyFor, reportKeyFor, type EstimateTask, type EstimateTaskOutcome } from './task';
 
 export interface EstimateQueueOptions {
   db: Db;
@@ -156,6 +157,7 @@ export class EstimateQueue {
       profile: claimed.profile,
       settings: claimed.settings,
       reportKey: reportKeyFor(claimed.shopId, claimed.id),
+      holdMethodsKey: holdMethodsKeyFor(claimed.shopId, claimed.id),
       progressPort: channel.port2,
     };
     const work = this.pool.run(task, { signal: entry.abort.signal, transferList: [channel.port2] }) as Promise<EstimateTaskOutcome>;
@@ -168,11 +170,14 @@ export class EstimateQueue {
             return;
           }
           if (outcome.ok) {
+            // written while the row is still running under this lease, so a reader of a done
+            // estimate finds its key; a row taken over meanwhile is computed (and keyed) again
+            await setHoldMethodsKey(this.db, this.owner, claimed.id, outcome.holdMethodsKey ?? null);
             const stored = await completeEstimate(this.db, this.owner, claimed, outcome);
             if (!stored) this.log(`estimate ${claimed.id} was taken over by another process before it finished here; this result is dropped`);
             else {
               const p = outcome.phasesMs;
-              console.log(`[kerfcast] estimate ${claimed.id} stored: ${outcome.computeMs} ms in the worker (read ${p.read}, engine ${p.engine}, report ${p.store}), report ${outcome.reportBytes} bytes`);
+              console.log(`[kerfcast] estimate ${claimed.id} stored: ${outcome.computeMs} ms in the worker (read ${p.read}, engine ${p.engine}, hold-down methods ${p.holdMethods ?? 0}, report ${p.store}), report ${outcome.reportBytes} bytes`);
             }
           } else {
             await failEstimate(this.db, this.owner, claimed.id, outcome.reason);

@@ -18,6 +18,8 @@ export interface EstimateTask {
   settings: EstimateSettingsDoc;
   /** where the worker stores the report JSON */
   reportKey: string;
+  /** where the worker stores the per-hold-down-method analysis (the hold-down comparison) */
+  holdMethodsKey: string;
   /** receives { progress } messages (0–1) while the task runs */
   progressPort?: MessagePort;
 }
@@ -26,10 +28,12 @@ export interface EstimateTaskResult {
   ok: true;
   reportKey: string;
   reportBytes: number;
+  /** the per-method analysis object; null when it could not be made (the estimate itself stands) */
+  holdMethodsKey?: string | null;
   /** reading the program, computing and storing the report, in the worker */
   computeMs: number;
   /** where computeMs went: reading and checking the program, the engine, storing the report */
-  phasesMs: { read: number; engine: number; store: number };
+  phasesMs: { read: number; engine: number; holdMethods?: number; store: number };
   totalSeconds: number;
   calibratedSeconds: number;
   errorCount: number;
@@ -49,6 +53,11 @@ export type EstimateTaskOutcome = EstimateTaskResult | EstimateTaskFailure;
 /** Where an estimate's report lives in the bucket. */
 export function reportKeyFor(shopId: number, estimateId: number): string {
   return `shops/${shopId}/estimates/${estimateId}.json`;
+}
+
+/** Where an estimate's per-hold-down-method analysis lives, beside its report. */
+export function holdMethodsKeyFor(shopId: number, estimateId: number): string {
+  return `shops/${shopId}/estimates/${estimateId}.hold-methods.json`;
 }
 
 /** A failure that belongs to the estimate's inputs (a missing object, changed bytes, a bad profile): its message is the reason. */

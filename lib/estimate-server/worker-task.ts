@@ -5,6 +5,7 @@
 import { createHash } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
 import { loadAnalysis } from '@/lib/analysis';
+import { holdMethods } from '@/lib/estimate/hold-methods';
 import { runEstimate, type EstimateStage } from '@/lib/estimate/run-estimate';
 import { checkProgramBytes } from '@/lib/gcode/program-text';
 import { getObject, putObject } from '@/lib/storage/s3';
@@ -45,21 +46,47 @@ export async function estimateTask(task: EstimateTask): Promise<EstimateTaskOutc
     progress(0.05);
     await analysisReady;
     const read = performance.now();
-    const { report } = runEstimate(text, profile.profile, task.settings, { name: task.fileName, sha256 }, (stage) =>
+    const run = runEstimate(text, profile.profile, task.settings, { name: task.fileName, sha256 }, (stage) =>
       progress(STAGE_PROGRESS[stage]),
     );
+    const { report } = run;
     const computed = performance.now();
+    // the hold-down comparison's analyses: the same moves, one analysis per method; a fault
+    // here leaves the estimate itself standing, without a comparison
+    let methodsBody: string | null = null;
+    try {
+      const doc = holdMethods({
+        moves: run.interpretation.moves,
+        profile: profile.profile,
+        job: { ...task.settings, machineVacuumKpa: task.settings.machineVacuumKpa ?? null },
+        base: run.checks,
+        achievedCuttingFeedMmPerMin: report.cuttingFeed.achievedMmPerMin > 0 ? report.cuttingFeed.achievedMmPerMin : null,
+        now: () => performance.now(),
+      });
+      methodsBody = JSON.stringify(doc);
+    } catch (err) {
+      console.error(`[kerfcast] estimate ${task.estimateId}: the per-method hold-down analysis failed, the estimate is stored without it: ${(err as Error)?.message ?? String(err)}`);
+    }
+    progress(0.97);
+    const methodsDone = performance.now();
     // the CLI's --json output is this string plus a newline
     const body = JSON.stringify(report);
     await putObject(task.reportKey, body, 'application/json');
+    if (methodsBody !== null) await putObject(task.holdMethodsKey, methodsBody, 'application/json');
     const storedAt = performance.now();
     const checks = (report.checks ?? {}) as CheckCounts;
     return {
       ok: true,
       reportKey: task.reportKey,
       reportBytes: Buffer.byteLength(body),
+      holdMethodsKey: methodsBody !== null ? task.holdMethodsKey : null,
       computeMs: Math.round(storedAt - started),
-      phasesMs: { read: Math.round(read - started), engine: Math.round(computed - read), store: Math.round(storedAt - computed) },
+      phasesMs: {
+        read: Math.round(read - started),
+        engine: Math.round(computed - read),
+        holdMethods: Math.round(methodsDone - computed),
+        store: Math.round(storedAt - methodsDone),
+      },
       totalSeconds: report.totalSeconds,
       calibratedSeconds: report.calibratedSeconds,
       errorCount: checks.errors ?? 0,

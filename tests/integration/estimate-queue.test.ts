@@ -151,7 +151,8 @@ describe('claiming', () => {
     expect(claimed.sha256).toBe(program.sha256);
     expect(claimed.jobId).toBe(shop.jobId);
     expect(claimed.profile).toEqual(shop.profile);
-    expect(claimed.settings).toEqual({ sheet: { widthMm: 2440, lengthMm: 1220, thicknessMm: 18 }, zero: 'top', hold: 'vacuum', vacuumKpa: 61 });
+    // the machine's own vacuum level is frozen with the job's settings (the hold-down comparison); this machine names none
+    expect(claimed.settings).toEqual({ sheet: { widthMm: 2440, lengthMm: 1220, thicknessMm: 18 }, zero: 'top', hold: 'vacuum', vacuumKpa: 61, machineVacuumKpa: null });
   });
 });
 
