@@ -8,10 +8,12 @@
 // replaces the one set here. Next.js reads headers() at build time, so HSTS on static
 // files follows the APP_URL the build saw; pages follow the running server's APP_URL.
 //
+// The viewer's worker entry script gets the worker policy (see security-headers.mjs).
+//
 // turbopack.resolveAlias: in browser bundles (the viewer's Web Worker) gcode-parser's top-level
 // Node imports get the stand-ins of workers/shims/node-builtins-browser.ts, and the polygon
 // library its web build (the same Clipper WebAssembly, without the Node file loader).
-import { isHttpsUrl, securityHeaders } from './lib/http/security-headers.mjs';
+import { isHttpsUrl, securityHeaders, WORKER_ENTRY_SOURCE } from './lib/http/security-headers.mjs';
 
 const BROWSER_SHIM = './workers/shims/node-builtins-browser.ts';
 
@@ -36,8 +38,13 @@ const nextConfig = {
     },
   },
   async headers() {
-    const headers = securityHeaders({ https: isHttpsUrl(process.env.APP_URL), dev: process.env.NODE_ENV === 'development' });
-    return [{ source: '/:path*', headers: headers.map(([key, value]) => ({ key, value })) }];
+    const options = { https: isHttpsUrl(process.env.APP_URL), dev: process.env.NODE_ENV === 'development' };
+    const pairs = (list) => list.map(([key, value]) => ({ key, value }));
+    // the later rule's Content-Security-Policy replaces the first one's on the worker entry
+    return [
+      { source: '/:path*', headers: pairs(securityHeaders(options)) },
+      { source: WORKER_ENTRY_SOURCE, headers: pairs(securityHeaders({ ...options, worker: true }).filter(([key]) => key === 'Content-Security-Policy')) },
+    ];
   },
 };
 

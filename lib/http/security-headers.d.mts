@@ -6,7 +6,10 @@ export interface SecurityHeaderOptions {
   https: boolean;
   /** `next dev`: React's debugging needs eval and the error overlay inline styles */
   dev: boolean;
+  /** the policy of a Web Worker's entry script: adds 'unsafe-eval' (the polygon library's bindings) */
+  worker?: boolean;
 }
 export function contentSecurityPolicy(options: SecurityHeaderOptions): string;
 export function securityHeaders(options: SecurityHeaderOptions): [string, string][];
 export function isHttpsUrl(appUrl: string | undefined): boolean;
+export const WORKER_ENTRY_SOURCE: string;

@@ -43,17 +43,22 @@ const DENIED_FEATURES = [
  *   writes; no 'unsafe-inline' outside `next dev`, whose error overlay needs it.
  * - Workers: 'self' and blob:, because the bundler may start a worker from a small
  *   blob: bootstrap that then loads its chunks from our origin.
+ * - The viewer's Web Worker (option `worker`, sent only on the bundler's worker entry
+ *   script, whose response headers are the worker's own policy): also 'unsafe-eval'. The
+ *   polygon library's WebAssembly bindings name their generated wrapper functions with
+ *   `Function(...)`; without it the worker cannot load the engine. A worker has no DOM, no
+ *   cookies and no access to the page; documents never get this source.
  * - upgrade-insecure-requests only when the app is served over https: on a plain-http
  *   loopback address it would ask for https copies that do not exist.
  *
- * @param {{ nonce?: string, https: boolean, dev: boolean }} options
+ * @param {{ nonce?: string, https: boolean, dev: boolean, worker?: boolean }} options
  * @returns {string}
  */
-export function contentSecurityPolicy({ nonce, https, dev }) {
+export function contentSecurityPolicy({ nonce, https, dev, worker = false }) {
   const nonceSource = nonce ? [`'nonce-${nonce}'`] : [];
   const directives = [
     ['default-src', "'self'"],
-    ['script-src', "'self'", ...nonceSource, "'wasm-unsafe-eval'", ...(dev ? ["'unsafe-eval'"] : [])],
+    ['script-src', "'self'", ...nonceSource, "'wasm-unsafe-eval'", ...(dev || worker ? ["'unsafe-eval'"] : [])],
     ['style-src', "'self'", ...(dev ? ["'unsafe-inline'"] : nonceSource)],
     ['img-src', "'self'"],
     ['font-src', "'self'"],
@@ -75,7 +80,7 @@ export function contentSecurityPolicy({ nonce, https, dev }) {
  * Every security header as [name, value] pairs, the CSP included. HSTS only over https:
  * browsers ignore it on plain http, and a loopback install has no certificate.
  *
- * @param {{ nonce?: string, https: boolean, dev: boolean }} options
+ * @param {{ nonce?: string, https: boolean, dev: boolean, worker?: boolean }} options
  * @returns {[string, string][]}
  */
 export function securityHeaders(options) {
@@ -97,3 +102,9 @@ export function securityHeaders(options) {
 export function isHttpsUrl(appUrl) {
   return typeof appUrl === 'string' && appUrl.startsWith('https://');
 }
+
+/**
+ * The bundler's worker entry scripts (path-to-regexp source for next.config.mjs headers()):
+ * a Web Worker started from one of them runs under that response's policy.
+ */
+export const WORKER_ENTRY_SOURCE = '/_next/static/chunks/:file(turbopack-worker-.*)';

@@ -39,7 +39,7 @@ function directives(policy: string): Map<string, string[]> {
 }
 
 /** The headers every response must carry; returns the CSP's directives for further checks. */
-function expectSecurityHeaders(response: Response): Map<string, string[]> {
+function expectSecurityHeaders(response: Response, { worker = false } = {}): Map<string, string[]> {
   const h = response.headers;
   const policy = h.get('content-security-policy') ?? '';
   // One policy only: fetch joins repeated headers with ", ", and a second policy would be
@@ -50,7 +50,9 @@ function expectSecurityHeaders(response: Response): Map<string, string[]> {
   expect(d.get('script-src')).toContain("'self'");
   expect(d.get('script-src')).toContain("'wasm-unsafe-eval'");
   expect(d.get('script-src')).not.toContain("'unsafe-inline'");
-  expect(d.get('script-src')).not.toContain("'unsafe-eval'");
+  // eval only in the viewer's Web Worker (the polygon library's WebAssembly bindings), never on a document
+  if (worker) expect(d.get('script-src')).toContain("'unsafe-eval'");
+  else expect(d.get('script-src')).not.toContain("'unsafe-eval'");
   expect(d.get('style-src')).not.toContain("'unsafe-inline'");
   for (const name of ['style-src', 'font-src', 'img-src', 'connect-src']) expect(d.get(name)).toEqual(expect.arrayContaining(["'self'"]));
   expect(d.get('worker-src')).toContain("'self'");
@@ -125,6 +127,16 @@ describe('security headers', () => {
       expect(response.status, path).toBe(200);
       expectSecurityHeaders(response);
     }
+  });
+
+  it("on the bundler's worker entry script: the worker policy, with the other headers as on every file", async () => {
+    const { readdirSync } = await import('node:fs');
+    const { join } = await import('node:path');
+    const entry = readdirSync(join(process.cwd(), '.next', 'static', 'chunks')).find((f) => /^turbopack-worker-.*\.js$/.test(f));
+    expect(entry, 'the build has a worker entry script').toBeDefined();
+    const response = await fetch(`${server.baseUrl}/_next/static/chunks/${entry}`);
+    expect(response.status).toBe(200);
+    expectSecurityHeaders(response, { worker: true });
   });
 });
 
