@@ -7,6 +7,7 @@ import { notFound } from 'next/navigation';
 import { ConfirmAction } from '@/components/machines/confirm-action';
 import { ProfileView } from '@/components/machines/profile-view';
 import { ToolForm } from '@/components/machines/tool-form';
+import { CalibrationSection } from '@/components/runs/calibration-section';
 import { VersionsTable } from '@/components/machines/versions-table';
 import { DataTable } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
@@ -149,6 +150,7 @@ export default async function MachinePage({ params, searchParams }: Props) {
           <h2 id="versions-title">Versions</h2>
           <VersionsTable versions={versions} current={machine.version} unit={unit} />
         </section>
+        <CalibrationSection user={user} machineId={machine.id} archived={archived} />
 
         {mayWrite && !archived ? (
           <section aria-labelledby="remove-title" className="flex flex-col gap-3">

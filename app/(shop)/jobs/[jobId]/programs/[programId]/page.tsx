@@ -7,6 +7,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { ProgramRunsSection } from '@/components/runs/program-runs-section';
 import { Notice } from '@/components/ui/notice';
 import { ProgramPageViewer } from '@/components/viewer/program-page-viewer';
 import { getJob } from '@/db/queries/jobs';
@@ -133,7 +134,7 @@ export default async function ProgramPage({
             )}
           </section>
 
-          {/* Runs of this program: the runs section goes here, below the stored estimate. */}
+          <ProgramRunsSection user={user} programId={program.id} version={shown.version} jobMachineId={job.machineId} />
         </div>
       </div>
     </>
