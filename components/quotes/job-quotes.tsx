@@ -3,12 +3,16 @@
 // builder prices with lib/quotes/price.ts, the function the server stores the quote with,
 // so every change of an input moves the total at once and the saved quote matches what was
 // shown. Sending, the PDF, withdrawing a link and revising are on each quote of the list.
+// The hold-down method is the builder's choice: each method is offered with what the estimate's
+// hold-down comparison (GET /api/estimates/:id/hold-down) says it holds, the suggested one can
+// be taken with one click, and the hold-down labour line follows the method chosen.
 import { useRouter } from 'next/navigation';
 import { useMemo, useState } from 'react';
 import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
 import { InputField, SelectField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import type { HoldDownAnswer } from '@/db/queries/hold-down';
 import type { QuoteBasis, QuoteView } from '@/db/queries/quotes';
 import { AppError, type FieldErrors } from '@/lib/errors';
 import { fetcher } from '@/lib/fetcher';
@@ -89,6 +93,14 @@ export function JobQuotes({ jobId, canWrite }: { jobId: number; canWrite: boolea
   const [serverFields, setServerFields] = useState<FieldErrors>({});
 
   const basis = data?.bases.find((b) => b.estimateId === draft?.estimateId) ?? null;
+  // what the hold-down comparison says of each method for the draft's estimate (none: not shown)
+  const { data: holdDown } = useSWR<HoldDownAnswer, AppError>(draft ? `/api/estimates/${draft.estimateId}/hold-down` : null, fetcher, { shouldRetryOnError: false });
+  const compared = holdDown?.availability === 'ready' ? holdDown : null;
+  const suggested = compared?.options.find((o) => o.method === compared.recommended) ?? null;
+  const holdDownHint = (h: HoldDown) => {
+    const o = compared?.options.find((x) => x.holdDown === h);
+    return o ? ` (holds ${o.heldParts.length} of ${compared!.partCount}${o.method === compared!.recommended ? ', suggested' : ''})` : '';
+  };
   const priced = useMemo(() => (draft && basis ? price(draft, basis) : null), [draft, basis]);
   const fields = { ...(priced && !priced.ok ? priced.fields : {}), ...serverFields };
 
@@ -181,13 +193,23 @@ export function JobQuotes({ jobId, canWrite }: { jobId: number; canWrite: boolea
                     label: `${b.programName} v${b.programVersion} on ${b.figures.machineName} v${b.machineVersion}: ${formatSeconds(b.figures.secondsPerSheet)} per sheet`,
                   }))}
                 />
-                <SelectField
-                  id="quote-hold-down"
-                  label="Hold-down method (labour)"
-                  value={draft.holdDown}
-                  onChange={(e) => set({ holdDown: e.target.value as HoldDown })}
-                  options={HOLD_DOWNS.map((h) => ({ value: h, label: HOLD_DOWN_LABELS[h] }))}
-                />
+                <div className="flex flex-col gap-2">
+                  <SelectField
+                    id="quote-hold-down"
+                    label="Hold-down method (labour)"
+                    hint={suggested ? `The hold-down comparison suggests ${suggested.label.toLowerCase()}; the hold-down labour follows the method chosen here.` : undefined}
+                    value={draft.holdDown}
+                    onChange={(e) => set({ holdDown: e.target.value as HoldDown })}
+                    options={HOLD_DOWNS.map((h) => ({ value: h, label: `${HOLD_DOWN_LABELS[h]}${holdDownHint(h)}` }))}
+                  />
+                  {suggested && suggested.holdDown !== draft.holdDown ? (
+                    <div>
+                      <Button type="button" variant="secondary" onClick={() => set({ holdDown: suggested.holdDown })}>
+                        Use {suggested.label.toLowerCase()}
+                      </Button>
+                    </div>
+                  ) : null}
+                </div>
                 <InputField id="quote-quantity" name="quantity" label="Quantity (pieces)" inputMode="numeric" value={draft.quantity} errors={fields.quantity} onChange={(e) => set({ quantity: e.target.value })} />
                 <InputField
                   id="quote-parts-per-sheet"

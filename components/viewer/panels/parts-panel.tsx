@@ -1,14 +1,34 @@
 'use client';
 // The parts the program cuts free, in the order they come free: size, area, whether something
 // holds each and what, and the line that frees it. Choosing a part focuses the camera on it and
-// moves the playhead to that line.
+// moves the playhead to that line. When the program page's hold-down section has published its
+// comparison (lib/viewer/hold-overlay.ts), each part is coloured and worded held or not held
+// for the method chosen there or in this panel's own selector, with the reason.
+import { useSyncExternalStore } from 'react';
 import { HELD_BY_WORDS, type ReportPartView } from '@/lib/jobs/estimate-view';
 import type { LengthUnit } from '@/lib/units/length';
+import { holdOverlay, selectedMethod } from '@/lib/viewer/hold-overlay';
 import { formatArea, formatSize } from '@/lib/viewer/readouts';
 
 export function PartsPanel({ parts, unit, flagged, onChoose }: { parts: ReportPartView[]; unit: LengthUnit; flagged: ReadonlySet<number>; onChoose: (p: ReportPartView) => void }) {
+  const overlay = useSyncExternalStore(holdOverlay.subscribe, holdOverlay.getSnapshot, holdOverlay.getSnapshot);
+  const chosen = selectedMethod(overlay);
   return (
     <section className="rounded-md border-2 border-rule bg-panel">
+      {chosen ? (
+        <div className="flex flex-wrap items-center gap-3 border-b border-rule-light px-3 py-2">
+          <label htmlFor="parts-hold-method" className="font-bold">
+            Held or not, for
+          </label>
+          <select id="parts-hold-method" className="min-h-target rounded-md border-2 border-rule bg-panel px-3" value={chosen.method} onChange={(e) => holdOverlay.select(e.target.value)}>
+            {overlay.methods.map((m) => (
+              <option key={m.method} value={m.method}>
+                {m.label}
+              </option>
+            ))}
+          </select>
+        </div>
+      ) : null}
       <div className="max-h-96 overflow-auto">
         <table className="w-full text-sm" data-testid="viewer-parts">
           <caption className="px-3 py-2 text-left text-base font-bold">Parts</caption>
@@ -25,8 +45,10 @@ export function PartsPanel({ parts, unit, flagged, onChoose }: { parts: ReportPa
             {parts.map((p) => {
               const w = p.bbox.maxX - p.bbox.minX;
               const l = p.bbox.maxY - p.bbox.minY;
+              const verdict = chosen?.verdicts.get(p.id) ?? null;
+              const tint = verdict ? (verdict.held ? 'bg-ok-tint' : 'bg-fault-tint') : flagged.has(p.id) ? 'bg-fault-tint' : '';
               return (
-                <tr key={p.id} className={`border-t border-rule-light ${flagged.has(p.id) ? 'bg-fault-tint' : ''}`} data-part-order={p.order}>
+                <tr key={p.id} className={`border-t border-rule-light ${tint}`} data-part-order={p.order} data-hold={verdict ? (verdict.held ? 'held' : 'not-held') : undefined}>
                   <td className="px-2 py-1">
                     <button type="button" onClick={() => onChoose(p)} className="figure font-bold text-spruce underline underline-offset-4" aria-label={`Part ${p.order}: show it`}>
                       {p.order}
@@ -37,7 +59,14 @@ export function PartsPanel({ parts, unit, flagged, onChoose }: { parts: ReportPa
                     {formatSize(w, unit)} × {formatSize(l, unit)}
                   </td>
                   <td className="figure px-2 py-1">{formatArea(p.areaMm2, unit)}</td>
-                  <td className="px-2 py-1">{p.held ? `Yes, ${HELD_BY_WORDS[p.holdBy]}` : 'No, held by nothing'}</td>
+                  {verdict ? (
+                    <td className="px-2 py-1">
+                      <span className={`font-bold ${verdict.held ? 'text-ok' : 'text-fault'}`}>{verdict.held ? '✓ Held' : '✕ Not held'}</span>
+                      <span className="block text-xs text-ink-soft">{verdict.reason}</span>
+                    </td>
+                  ) : (
+                    <td className="px-2 py-1">{p.held ? `Yes, ${HELD_BY_WORDS[p.holdBy]}` : 'No, held by nothing'}</td>
+                  )}
                   <td className="figure px-2 py-1">{p.freedAtLine ? `line ${p.freedAtLine}` : p.tabs > 0 ? 'stays on tabs' : p.skinMm > 0 ? 'stays on the skin' : '—'}</td>
                 </tr>
               );
