@@ -8,6 +8,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ProgramRunsSection } from '@/components/runs/program-runs-section';
+import { HoldDownSection } from '@/components/holddown/hold-down-section';
 import { Notice } from '@/components/ui/notice';
 import { ProgramPageViewer } from '@/components/viewer/program-page-viewer';
 import { getJob } from '@/db/queries/jobs';
@@ -134,6 +135,7 @@ export default async function ProgramPage({
             )}
           </section>
 
+          <HoldDownSection estimate={stored ? { id: stored.estimate.id, status: stored.estimate.status, machineId: stored.estimate.machineId } : null} programId={program.id} version={shown.version} role={user.role} />
           <ProgramRunsSection user={user} programId={program.id} version={shown.version} jobMachineId={job.machineId} />
         </div>
       </div>
