@@ -15,6 +15,7 @@ import { customers, jobs, machineVersions, machines, materials, shops, tools, us
 import { BCRYPT_COST, DEMO_PASSWORD, demoCustomers, demoJobs, demoMachines, demoMaterials, demoShop, demoUsers } from './seed-data';
 import { machineRowToProfile, profileToMachineColumns } from './queries/machines';
 import { readProfileFile } from './seed-machines';
+import { seedRuns } from './seed-runs';
 
 const fixturesDir = path.resolve(__dirname, '..', 'fixtures', 'machines');
 // A no-op update: "insert unless the unique key exists" without INSERT IGNORE's habit
@@ -138,6 +139,7 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
       });
     }
 
+    await seedRuns(tx, shopId);
     return { shopId, logins: demoUsers.map((u) => ({ email: u.email, role: u.role, password: DEMO_PASSWORD })) };
   });
 }
