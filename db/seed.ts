@@ -16,6 +16,7 @@ import { BCRYPT_COST, DEMO_PASSWORD, demoCustomers, demoJobs, demoMachines, demo
 import { machineRowToProfile, profileToMachineColumns } from './queries/machines';
 import { readProfileFile } from './seed-machines';
 import { seedRuns } from './seed-runs';
+import { seedHoldDownDemo } from './seed-holddown';
 
 const fixturesDir = path.resolve(__dirname, '..', 'fixtures', 'machines');
 // A no-op update: "insert unless the unique key exists" without INSERT IGNORE's habit
@@ -140,6 +141,7 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
     }
 
     await seedRuns(tx, shopId);
+    await seedHoldDownDemo(tx, shopId);
     return { shopId, logins: demoUsers.map((u) => ({ email: u.email, role: u.role, password: DEMO_PASSWORD })) };
   });
 }

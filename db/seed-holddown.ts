@@ -1,0 +1,51 @@
+// Demo data for the hold-down comparison: the price-tag-holder job ("Shelf-edge price-tag
+// holders", 240 pieces of 3 mm cast acrylic on Router 1) gets its program, a sheet of 64 small
+// holders of 26.8 × 24.8 mm cut with the 3.175 mm up-cut tool T2 (fixtures/price-tag-nest.ts),
+// stored the way an upload stores it, with its estimate queued for the server to compute on
+// start. The estimate's per-method analysis then shows vacuum ruled out part by part (each
+// part's area is too small for Router 1's 61 kPa table against the side force) and tape and
+// glue suggested. Idempotent: a job that already has the program is left as it is.
+import { createHash } from 'node:crypto';
+import { and, eq } from 'drizzle-orm';
+import { PRICE_TAG_NEST_NAME, priceTagNest } from '@/fixtures/price-tag-nest';
+import { jobEstimateSettings, requestEstimate } from '@/lib/estimate-server/request';
+import { putObject } from '@/lib/storage/s3';
+import type { Tx } from './queries/machines';
+import { jobEvents, jobs, programs, programVersions, users } from './schema';
+
+export const HOLD_DOWN_DEMO_JOB = 'Shelf-edge price-tag holders';
+
+/** Returns the estimate id queued, or null when the program was already there (or the job is missing). */
+export async function seedHoldDownDemo(tx: Tx, shopId: number): Promise<number | null> {
+  const [job] = await tx.select().from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.title, HOLD_DOWN_DEMO_JOB)));
+  if (!job || job.machineId === null) return null;
+  const [existing] = await tx.select({ id: programs.id }).from(programs).where(and(eq(programs.jobId, job.id), eq(programs.name, PRICE_TAG_NEST_NAME)));
+  if (existing) return null;
+  const [priya] = await tx.select({ id: users.id }).from(users).where(and(eq(users.shopId, shopId), eq(users.role, 'programmer')));
+  const bytes = Buffer.from(priceTagNest().text, 'utf8');
+  const sha256 = createHash('sha256').update(bytes).digest('hex');
+  const [{ id: programId }] = await tx.insert(programs).values({ shopId, jobId: job.id, name: PRICE_TAG_NEST_NAME, latestVersion: 1 }).$returningId();
+  const objectKey = `shops/${shopId}/jobs/${job.id}/programs/${programId}/v1-${sha256.slice(0, 16)}.nc`;
+  await putObject(objectKey, bytes, 'text/plain; charset=utf-8');
+  const lines = bytes.toString('utf8').split('\n').length;
+  const [{ id: versionId }] = await tx
+    .insert(programVersions)
+    .values({ shopId, programId, version: 1, objectKey, sha256, bytes: bytes.length, lines, uploadedBy: priya?.id ?? null })
+    .$returningId();
+  await tx.insert(jobEvents).values({ shopId, jobId: job.id, userId: priya?.id ?? null, kind: 'program-uploaded', detail: `${PRICE_TAG_NEST_NAME}, version 1` });
+  if (job.status === 'draft') {
+    await tx.update(jobs).set({ status: 'programmed' }).where(eq(jobs.id, job.id));
+    await tx.insert(jobEvents).values({ shopId, jobId: job.id, userId: priya?.id ?? null, kind: 'status', detail: 'draft>programmed' });
+  }
+  const requested = await requestEstimate(tx, {
+    shopId,
+    programId,
+    programVersionId: versionId,
+    programVersion: 1,
+    sha256,
+    machineId: job.machineId,
+    requestedBy: priya?.id ?? null,
+    settings: jobEstimateSettings(job),
+  });
+  return requested.id;
+}
