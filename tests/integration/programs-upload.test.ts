@@ -290,8 +290,8 @@ describe('an upload stores the file, its figures and its rows', () => {
     expect(program).toMatchObject({ shopId: a.shopId, jobId, name: FIXTURE_NAME, latestVersion: 1 });
     const [estimate] = await db.select().from(s.estimates).where(eq(s.estimates.id, firstEstimateId));
     expect(estimate).toMatchObject({ shopId: a.shopId, programId, programVersion: 1, machineId: a.machineId });
-    // with the machine's own vacuum level (none on this machine), for the hold-down comparison
-    expect(estimate.settings).toEqual({ sheet: { widthMm: 1220, lengthMm: 2440, thicknessMm: 18 }, zero: 'top', hold: 'vacuum', vacuumKpa: 70, machineVacuumKpa: null });
+    // with the machine's own vacuum level (the demo's Router 1: 61 kPa, db/seed-data.ts), for the hold-down comparison
+    expect(estimate.settings).toEqual({ sheet: { widthMm: 1220, lengthMm: 2440, thicknessMm: 18 }, zero: 'top', hold: 'vacuum', vacuumKpa: 70, machineVacuumKpa: 61 });
     const events = await db.select().from(s.jobEvents).where(eq(s.jobEvents.jobId, jobId));
     expect(events.map((e) => e.kind).sort()).toEqual(['program-uploaded', 'status']);
     expect(events.find((e) => e.kind === 'status')?.detail).toBe('draft>programmed');
