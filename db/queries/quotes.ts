@@ -13,7 +13,7 @@ import { listJobPrograms } from '@/db/queries/programs';
 import { openEstimateReport } from '@/db/queries/estimates';
 import { AppError } from '@/lib/errors';
 import { buildPrice, PriceInputError, type PriceFigures, type PriceInputs, type PriceLine, type PriceSettings } from '@/lib/quotes/price';
-import type { HoldDown, QuoteStatus } from '@/lib/validation/enums';
+import type { HoldDown, JobStatus, QuoteStatus } from '@/lib/validation/enums';
 import type { QuoteInput } from '@/lib/validation/quotes';
 
 /** One estimate a quote can be built from, with the figures it would freeze. */
@@ -345,6 +345,16 @@ export async function finishMailLog(id: number, outcome: { ok: true; messageId: 
     .where(eq(mailLog.id, id));
 }
 
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/** Moves the job to `to` when it is in one of `from`, with the history line naming the status it left. */
+async function moveJob(tx: Tx, shopId: number, jobId: number, userId: number | null, from: JobStatus[], to: JobStatus): Promise<void> {
+  const [job] = await tx.select({ status: jobs.status }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId))).for('update');
+  if (!job || !from.includes(job.status)) return;
+  await tx.update(jobs).set({ status: to }).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+  await tx.insert(jobEvents).values({ shopId, jobId, userId, kind: 'status', detail: `${job.status}>${to}` });
+}
+
 /**
  * Marks a draft sent after the SMTP server accepted it: the token's hash, the sent time and
  * the validity date; the job moves from programmed to quoted. A quote sent meanwhile by
@@ -362,13 +372,7 @@ export async function markQuoteSent(shopId: number, userId: number, quote: Quote
       await tx.update(quotes).set({ tokenRevokedAt: sql`NOW()` }).where(and(eq(quotes.shopId, shopId), eq(quotes.id, quote.revisionOf), isNull(quotes.tokenRevokedAt)));
     }
     await tx.insert(jobEvents).values({ shopId, jobId: quote.jobId, userId, kind: 'quote-sent', detail: `Sent quote ${quote.number} to the customer.` });
-    const [moved] = await tx
-      .update(jobs)
-      .set({ status: 'quoted' })
-      .where(and(eq(jobs.shopId, shopId), eq(jobs.id, quote.jobId), inArray(jobs.status, ['draft', 'programmed'])));
-    if (moved.affectedRows === 1) {
-      await tx.insert(jobEvents).values({ shopId, jobId: quote.jobId, userId, kind: 'status', detail: 'programmed>quoted' });
-    }
+    await moveJob(tx, shopId, quote.jobId, userId, ['draft', 'programmed'], 'quoted');
   });
 }
 
@@ -466,13 +470,9 @@ export async function answerQuote(token: string, answer: CustomerAnswer): Promis
       answer.kind === 'accept'
         ? `The customer (${answer.name}${answer.purchaseOrder ? `, order ${answer.purchaseOrder}` : ''}) accepted quote ${row.number}.`
         : `The customer declined quote ${row.number}${answer.reason ? `: ${answer.reason}` : ''}.`;
-    await tx.insert(jobEvents).values({ shopId: row.shopId, jobId: row.jobId, userId: null, kind: `quote-${answer.kind}ed`, detail: words.slice(0, 500) });
+    await tx.insert(jobEvents).values({ shopId: row.shopId, jobId: row.jobId, userId: null, kind: answer.kind === 'accept' ? 'quote-accepted' : 'quote-declined', detail: words.slice(0, 500) });
     if (answer.kind === 'accept') {
-      const [moved] = await tx
-        .update(jobs)
-        .set({ status: 'accepted' })
-        .where(and(eq(jobs.shopId, row.shopId), eq(jobs.id, row.jobId), inArray(jobs.status, ['programmed', 'quoted'])));
-      if (moved.affectedRows === 1) await tx.insert(jobEvents).values({ shopId: row.shopId, jobId: row.jobId, userId: null, kind: 'status', detail: 'quoted>accepted' });
+      await moveJob(tx, row.shopId, row.jobId, null, ['programmed', 'quoted'], 'accepted');
     }
     return { ok: true as const };
   });
