@@ -7,16 +7,8 @@ import { Button } from '@/components/ui/button';
 import { InputField, SelectField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import type { AppError, FieldErrors } from '@/lib/errors';
+import { parseDurationText } from '@/lib/runs/run-format';
 import { postRun, type MachineChoice } from './run-api';
-
-/** "45", "45.5" minutes or "1:05:30" (h:mm:ss) → seconds; null when it is neither. */
-export function parseDurationText(text: string): number | null {
-  const t = text.trim();
-  if (/^\d+(\.\d+)?$/.test(t)) return Math.round(Number(t) * 60);
-  const m = /^(\d+):([0-5]\d)(?::([0-5]\d))?$/.exec(t);
-  if (!m) return null;
-  return m[3] === undefined ? Number(m[1]) * 60 + Number(m[2]) : Number(m[1]) * 3600 + Number(m[2]) * 60 + Number(m[3]);
-}
 
 export function ManualRunForm({ programId, version, machines, defaultMachineId, onDone }: { programId: number; version: number; machines: MachineChoice[]; defaultMachineId: number | null; onDone: () => Promise<unknown> }) {
   const [machineId, setMachineId] = useState(defaultMachineId === null ? '' : String(defaultMachineId));

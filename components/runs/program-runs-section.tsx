@@ -17,7 +17,7 @@ export async function ProgramRunsSection({ user, programId, version, jobMachineI
       machines={machines.map((m) => ({ id: m.id, name: m.name }))}
       defaultMachineId={jobMachineId !== null && machines.some((m) => m.id === jobMachineId) ? jobMachineId : (machines[0]?.id ?? null)}
       initial={first}
-      me={{ id: user.id, mayRun: canDo(user.role, 'runs:write'), mayCorrectAny: canDo(user.role, 'runs:correct-any') }}
+      me={{ id: user.id, role: user.role, mayRun: canDo(user.role, 'runs:write'), mayCorrectAny: canDo(user.role, 'runs:correct-any') }}
     />
   );
 }

@@ -1,9 +1,11 @@
 // What the run components share: posting to a run route through the one fetcher (so the
 // server's typed error comes back as it was thrown), and the props they pass around.
 import { fetcher } from '@/lib/fetcher';
+import type { Role } from '@/lib/validation/enums';
 
 export interface RunsMe {
   id: number;
+  role: Role;
   mayRun: boolean;
   mayCorrectAny: boolean;
 }

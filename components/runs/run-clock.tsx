@@ -6,16 +6,8 @@
 // (docs/style.md: colour is never the only signal; no run-light colours).
 import { useEffect, useState } from 'react';
 import type { RunView } from '@/db/queries/runs';
+import { clockFace } from '@/lib/runs/run-format';
 import { runningSeconds } from '@/lib/runs/timer';
-
-/** 3725 s → "1:02:05" (h:mm:ss), the clock face of a run. */
-export function clockFace(seconds: number): string {
-  const total = Math.max(0, Math.floor(seconds));
-  const h = Math.floor(total / 3600);
-  const m = Math.floor((total % 3600) / 60);
-  const s = total % 60;
-  return `${h}:${String(m).padStart(2, '0')}:${String(s).padStart(2, '0')}`;
-}
 
 function StateMark({ paused }: { paused: boolean }) {
   // timing: a ring with a quarter sweep; paused: two upright bars in a ring. Both outlined.

@@ -11,7 +11,8 @@ import { Notice } from '@/components/ui/notice';
 import type { RunView } from '@/db/queries/runs';
 import type { AppError, FieldErrors } from '@/lib/errors';
 import { formatDuration, formatWhen } from '@/lib/jobs/format';
-import { parseDurationText } from './manual-run-form';
+import { mayCorrect as mayCorrectRun } from '@/lib/runs/correct-rule';
+import { parseDurationText } from '@/lib/runs/run-format';
 import { postRun, type RunsMe } from './run-api';
 
 function outcomeWords(r: RunView): string {
@@ -95,7 +96,7 @@ function CorrectForm({ run, mayVoid, onChanged }: { run: RunView; mayVoid: boole
 
 export function RunsTable({ runs, total, me, onChanged }: { runs: RunView[]; total: number; me: RunsMe; onChanged: () => Promise<unknown> }) {
   if (runs.length === 0) return <p className="text-ink-soft">No finished runs of this version yet.</p>;
-  const today = new Date().toISOString().slice(0, 10);
+  const now = new Date();
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-left text-sm">
@@ -113,7 +114,7 @@ export function RunsTable({ runs, total, me, onChanged }: { runs: RunView[]; tot
         <tbody>
           {runs.map((r) => {
             const ratio = r.actualSeconds !== null && r.estimatedRunSeconds !== null ? r.actualSeconds / r.estimatedRunSeconds : null;
-            const mayCorrect = r.status === 'finished' && (me.mayCorrectAny || (me.mayRun && r.operatorId === me.id && (r.finishedAt ?? r.startedAt).slice(0, 10) === today));
+            const mayCorrect = r.status === 'finished' && mayCorrectRun(me, r, now);
             return (
               <tr key={r.id} className="border-b border-rule-light align-top" data-testid="run-row" data-status={r.status}>
                 <td className="p-2">

@@ -24,6 +24,7 @@ import { estimates, jobs, machines, programs, programVersions, runChanges, runEv
 import { canDo } from '@/lib/auth/roles';
 import { AppError } from '@/lib/errors';
 import { calibrate, type Calibration } from '@/lib/runs/calibration';
+import { mayCorrect } from '@/lib/runs/correct-rule';
 import { runEstimateSeconds } from '@/lib/runs/run-estimate';
 import { NEXT_EVENTS, runningSeconds, timerState, type TimerEvent } from '@/lib/runs/timer';
 import type { Role, RunEventKind, RunStatus } from '@/lib/validation/enums';
@@ -468,15 +469,6 @@ export async function recordManualRun(shopId: number, user: RunUser, input: RunM
 }
 
 // --- corrections and voiding -------------------------------------------------------------
-
-const utcDay = (d: Date) => d.toISOString().slice(0, 10);
-
-/** Operators correct their own runs on the day the run ended (UTC, the clock pages show); admins any run. */
-export function mayCorrect(actor: RunUser, run: Pick<RunRow, 'operatorId' | 'startedAt' | 'finishedAt'>, now: Date): boolean {
-  if (canDo(actor.role, 'runs:correct-any')) return true;
-  if (!canDo(actor.role, 'runs:write') || run.operatorId !== actor.id) return false;
-  return utcDay(run.finishedAt ?? run.startedAt) === utcDay(now);
-}
 
 const asText = (v: unknown): string | null => (v === null || v === undefined ? null : typeof v === 'boolean' ? (v ? 'yes' : 'no') : String(v));
 

@@ -5,6 +5,7 @@
 // JSON bodies take numbers and booleans as such: z.coerce would turn `true` into 1 and
 // `[5]` into 5, so only the list query (URL search params, all strings) coerces.
 import { z } from '@/lib/validation/zod';
+import { isCalendarDate } from './dates';
 import { RUN_STATUSES } from './enums';
 
 const MAX_ID = 2_147_483_647;
@@ -39,17 +40,15 @@ function sheetsForFinish<T extends { sheetsCut: number; interrupted: boolean }>(
 
 export const runFinishSchema = z.object({ sheetsCut, interrupted, notes }).superRefine(sheetsForFinish);
 
-const INSTANT = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2})(?:\.\d{1,3})?)?(Z|[+-]\d{2}:\d{2})?$/;
+const INSTANT = /^(\d{4}-\d{2}-\d{2})T(\d{2}):(\d{2})(?::(\d{2})(?:\.\d{1,3})?)?(Z|[+-]\d{2}:\d{2})?$/;
+const withZone = (v: string) => (/(Z|[+-]\d{2}:\d{2})$/.test(v) ? v : `${v}Z`);
 
-/** A real calendar date and time of day: Date.parse rolls 2026-02-31 over to 3 March, this does not. */
+/** A real calendar day (Date.parse rolls 2026-02-31 over to 3 March) and time of day. */
 function isRealInstant(v: string): boolean {
   const m = INSTANT.exec(v);
-  if (!m) return false;
-  const [year, month, dayOfMonth, hour, minute, second] = [m[1], m[2], m[3], m[4], m[5], m[6] ?? '0'].map(Number);
-  const d = new Date(Date.UTC(year, month - 1, dayOfMonth));
-  return d.getUTCMonth() === month - 1 && d.getUTCDate() === dayOfMonth && hour < 24 && minute < 60 && second < 60 && !Number.isNaN(Date.parse(withZone(v)));
+  if (!m || !isCalendarDate(m[1])) return false;
+  return Number(m[2]) < 24 && Number(m[3]) < 60 && Number(m[4] ?? 0) < 60 && !Number.isNaN(Date.parse(withZone(v)));
 }
-const withZone = (v: string) => (/(Z|[+-]\d{2}:\d{2})$/.test(v) ? v : `${v}Z`);
 
 const instant = (label: string) =>
   z
@@ -83,6 +82,8 @@ export const runManualSchema = z
     // not parse is still the string it was, so the checks between them wait for valid ones
     if (!(v.startedAt instanceof Date) || (v.finishedAt !== undefined && !(v.finishedAt instanceof Date))) return;
     if (v.durationSeconds !== undefined && typeof v.durationSeconds !== 'number') return;
+    // the runs table keeps TIMESTAMP columns (1970 to 2038); a run before 2000 is a typing slip
+    if (v.startedAt.getTime() < Date.UTC(2000, 0, 1)) ctx.addIssue({ code: 'custom', path: ['startedAt'], message: 'Enter a start in the year 2000 or later.' });
     if (v.finishedAt === undefined && v.durationSeconds === undefined) {
       ctx.addIssue({ code: 'custom', path: ['durationSeconds'], message: 'Enter the end, or how long the run took.' });
     }
@@ -122,7 +123,7 @@ const day = (label: string) =>
   z
     .string()
     .trim()
-    .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${label} date like 2026-12-31.`)
+    .refine(isCalendarDate, `Enter the ${label} date as a real date, like 2026-12-31.`)
     .optional();
 
 /** The runs list's filters and page: URL search params of /runs, GET /api/runs and the CSV export. */

@@ -375,7 +375,7 @@ export const ROUTE_SPECS: Record<string, RouteSpec> = {
   'PATCH /api/runs/[runId]': {
     action: 'runs:write',
     body: { actualSeconds: 2712, reason: 'The timer ran on over lunch.' },
-    note: 'who may correct which run (own run on the day; runs:correct-any for any) is decided in correctRun: tests/unit/runs/correct-rule.test.ts and tests/integration/runs.test.ts',
+    note: 'who may correct which run (own run on the day; runs:correct-any for any) is decided in correctRun: tests/unit/runs/run-rules.test.ts and tests/integration/runs.test.ts',
     input: {
       wrongTypes: { body: { actualSeconds: 'long', sheetsCut: 2.5, interrupted: 'yes', reason: 4 }, fields: ['actualSeconds', 'interrupted', 'reason', 'sheetsCut'] },
       boundaries: [
