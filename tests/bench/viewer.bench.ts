@@ -50,6 +50,9 @@ export default async function viewerBench(): Promise<void> {
   try {
     context.setDefaultTimeout(600_000);
     const page = await context.newPage();
+    // tsx compiles this file with esbuild's keepNames, which wraps named functions inside the
+    // page.evaluate callbacks in a __name(fn, "name") helper that only exists in Node
+    await page.addInitScript('globalThis.__name = (fn) => fn;');
     await page.addInitScript(() => {
       const w = window as unknown as { __longTasks: number[] };
       w.__longTasks = [];
