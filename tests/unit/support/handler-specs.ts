@@ -432,6 +432,26 @@ export const ROUTE_SPECS: Record<string, RouteSpec> = {
       ],
     },
   },
+  // exports (issue 15): CSV streamed in batches; the first batch answers [] (a header-only file)
+  'GET /api/exports/runs.csv': {
+    action: 'runs:read',
+    query: '?machineId=2&status=finished&from=2026-11-01&to=2026-11-30',
+    answers: { runExportBatch: [] },
+    badQueries: [
+      { query: '?status=stopped', field: 'status' },
+      { query: '?machineId=two', field: 'machineId' },
+      { query: '?to=2026-02-31', field: 'to' },
+    ],
+  },
+  'GET /api/exports/estimates.csv': {
+    action: 'estimates:read',
+    query: '?machineId=2',
+    answers: { estimateExportBatch: [] },
+    badQueries: [
+      { query: '?machineId=0', field: 'machineId' },
+      { query: '?jobId=1.5', field: 'jobId' },
+    ],
+  },
   'GET /api/users': { action: 'users:read' },
   'POST /api/users': {
     action: 'users:write',
