@@ -329,7 +329,7 @@ function BuildUp({ price }: { price: PriceBuildUp }) {
           <tr key={l.key} className={`border-b border-rule-light align-top ${l.key === 'total' ? 'font-bold' : ''}`} data-line={l.key}>
             <th scope="row" className="py-1 pr-3 font-bold">{l.label}</th>
             <td className="figure py-1 pr-3 text-sm">{l.arithmetic}</td>
-            <td className="figure py-1 text-right" data-testid={l.key === 'total' ? 'build-up-total' : undefined}>
+            <td className="figure whitespace-nowrap py-1 text-right" data-testid={l.key === 'total' ? 'build-up-total' : undefined}>
               {l.amountMinor === null ? '' : formatMoney(l.amountMinor, price.currency)}
             </td>
           </tr>

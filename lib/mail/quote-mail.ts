@@ -51,7 +51,7 @@ export async function sendQuoteToCustomer(shopId: number, userId: number, quoteI
   const text = [
     `Dear ${ctx.customerName},`,
     '',
-    `please find our quote ${row.number} for "${ctx.jobTitle}" attached: ${formatMoney(row.totalMinor, row.currency)} in total, valid until ${validUntil}.`,
+    `Please find our quote ${row.number} for "${ctx.jobTitle}" attached: ${formatMoney(row.totalMinor, row.currency)} in total, valid until ${validUntil}.`,
     '',
     `You can accept or decline it here: ${link}`,
     '',

@@ -1,15 +1,16 @@
 import 'server-only';
-// The quote as a PDF (pdfkit, A4), set in the shipped Atkinson Hyperlegible files of
-// public/fonts (SIL Open Font License, beside them). Shop name and address, customer, job,
-// the lines with their arithmetic, totals, validity, terms, and the caution that the cut
-// time is an estimate. The fonts hold the Latin set only: signs outside it are written out.
-import path from 'node:path';
+// The quote as a PDF (pdfkit, A4), set in Helvetica from the font metrics pdfkit ships
+// (node_modules/pdfkit/js/data/*.afm): one of the PDF standard fonts every viewer has
+// (ISO 32000-1 §9.6.2.2), so nothing is embedded and every viewer draws it. (The WOFF2 files
+// of public/fonts are for the browser: pdfkit embeds them as they are, and PDF viewers draw
+// such a page blank.) Shop name and address, customer, job, the lines with their arithmetic,
+// totals, validity, terms, and the caution that the cut time is an estimate. The standard
+// fonts hold the WinAnsi set only: signs outside it are written out or reduced to their letter.
 import PDFDocument from 'pdfkit';
 import { formatMoney, type PriceLine } from '@/lib/quotes/price';
 
-const FONT_DIR = path.join(process.cwd(), 'public', 'fonts', 'atkinson-hyperlegible');
-const REGULAR = path.join(FONT_DIR, 'atkinson-hyperlegible-latin-400-normal.woff2');
-const BOLD = path.join(FONT_DIR, 'atkinson-hyperlegible-latin-700-normal.woff2');
+const REGULAR = 'Helvetica';
+const BOLD = 'Helvetica-Bold';
 
 export const ESTIMATE_CAUTION =
   'The machine time in this quote is an estimate computed from the cutting program; the actual time on the machine can differ. ' +
@@ -30,18 +31,31 @@ export interface QuotePdfInput {
   terms: string;
 }
 
-/** Characters the shipped Latin subset lacks, written out. */
-function latin(text: string): string {
-  return text.replace(/⌈/g, 'ceil(').replace(/⌉/g, ')').replace(/−/g, '-').replace(/≥/g, '>=');
+// WinAnsiEncoding's characters above 0x7F outside Latin-1 (ISO 32000-1 Annex D.2)
+const WIN_ANSI_EXTRA = new Set('€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ');
+const SPELLED: Record<string, string> = { '⌈': 'ceil(', '⌉': ')', '⌊': 'floor(', '⌋': ')', '−': '-', '≥': '>=', '≤': '<=', '≈': '~', '→': '->', '\u00a0': ' ', '\u202f': ' ' };
+
+/** Text the standard fonts can show: WinAnsi characters kept, a few signs written out, others reduced to their base letter or '?'. */
+export function winAnsi(text: string): string {
+  let out = '';
+  for (const ch of text) {
+    const code = ch.codePointAt(0)!;
+    if (SPELLED[ch] !== undefined) out += SPELLED[ch];
+    else if (code === 0x0a || (code >= 0x20 && code <= 0x7e) || (code >= 0xa0 && code <= 0xff) || WIN_ANSI_EXTRA.has(ch)) out += ch;
+    else {
+      const base = ch.normalize('NFKD').replace(/[\u0300-\u036f]/g, '');
+      out += base && [...base].every((c) => c.charCodeAt(0) <= 0xff) ? base : '?';
+    }
+  }
+  return out;
 }
+const latin = winAnsi;
 
 const TOTAL_KEYS = new Set(['subtotal', 'margin', 'rounding', 'net', 'tax', 'total']);
 
 export function quotePdf(q: QuotePdfInput): Promise<Buffer> {
   return new Promise((resolve, reject) => {
     const doc = new PDFDocument({ size: 'A4', margin: 56, font: REGULAR, info: { Title: `Quote ${q.number}`, Author: q.shopName } });
-    doc.registerFont('regular', REGULAR);
-    doc.registerFont('bold', BOLD);
     const chunks: Buffer[] = [];
     doc.on('data', (c: Buffer) => chunks.push(c));
     doc.on('end', () => resolve(Buffer.concat(chunks)));
@@ -51,11 +65,11 @@ export function quotePdf(q: QuotePdfInput): Promise<Buffer> {
     const width = doc.page.width - left - doc.page.margins.right;
     const amountW = 110;
 
-    doc.font('bold').fontSize(18).text(latin(q.shopName));
-    if (q.shopAddress.trim()) doc.font('regular').fontSize(10).text(latin(q.shopAddress));
+    doc.font(BOLD).fontSize(18).text(latin(q.shopName));
+    if (q.shopAddress.trim()) doc.font(REGULAR).fontSize(10).text(latin(q.shopAddress));
     doc.moveDown(1.2);
-    doc.font('bold').fontSize(16).text(`Quote ${q.number}`);
-    doc.font('regular').fontSize(10);
+    doc.font(BOLD).fontSize(16).text(`Quote ${q.number}`);
+    doc.font(REGULAR).fontSize(10);
     doc.text(`Issued ${q.issuedOn}`);
     doc.text(q.validUntil ? `Valid until ${q.validUntil}` : `Valid for ${q.validityDays} days from sending`);
     doc.moveDown(0.6);
@@ -70,27 +84,27 @@ export function quotePdf(q: QuotePdfInput): Promise<Buffer> {
         doc.moveDown(0.3);
       }
       const y = doc.y;
-      doc.font(line.key === 'total' ? 'bold' : 'regular').fontSize(line.key === 'total' ? 12 : 10);
+      doc.font(line.key === 'total' ? BOLD : REGULAR).fontSize(line.key === 'total' ? 12 : 10);
       doc.text(latin(line.label), left, y, { width: width - amountW - 10 });
       const afterLabel = doc.y;
       if (line.amountMinor !== null) doc.text(money(line.amountMinor), left + width - amountW, y, { width: amountW, align: 'right' });
       doc.y = afterLabel;
       if (!isTotal || line.key === 'margin' || line.key === 'tax' || line.key === 'rounding') {
-        doc.font('regular').fontSize(8).fillColor('#444444').text(latin(line.arithmetic), left, doc.y, { width: width - amountW - 10 });
+        doc.font(REGULAR).fontSize(8).fillColor('#444444').text(latin(line.arithmetic), left, doc.y, { width: width - amountW - 10 });
         doc.fillColor('#000000');
       }
       doc.moveDown(0.4);
     }
     doc.moveDown(0.6);
-    doc.font('bold').fontSize(12).text(`Total ${money(q.totalMinor)}`, left, doc.y, { width, align: 'right' });
+    doc.font(BOLD).fontSize(12).text(`Total ${money(q.totalMinor)}`, left, doc.y, { width, align: 'right' });
     doc.moveDown(1.2);
     if (q.terms.trim()) {
-      doc.font('bold').fontSize(10).text('Terms', left);
-      doc.font('regular').fontSize(9).text(latin(q.terms), { width });
+      doc.font(BOLD).fontSize(10).text('Terms', left);
+      doc.font(REGULAR).fontSize(9).text(latin(q.terms), { width });
       doc.moveDown(0.8);
     }
-    doc.font('bold').fontSize(10).text('About the machine time', left);
-    doc.font('regular').fontSize(9).text(latin(ESTIMATE_CAUTION), { width });
+    doc.font(BOLD).fontSize(10).text('About the machine time', left);
+    doc.font(REGULAR).fontSize(9).text(latin(ESTIMATE_CAUTION), { width });
     doc.end();
   });
 }

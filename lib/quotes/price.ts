@@ -140,7 +140,7 @@ export function formatMoney(minor: number, currency: string): string {
   const unit = 10 ** digits;
   const major = Math.floor(abs / unit).toLocaleString('en');
   const frac = digits > 0 ? '.' + String(abs % unit).padStart(digits, '0') : '';
-  return `${sign}${currency} ${major}${frac}`;
+  return `${currency} ${sign}${major}${frac}`;
 }
 
 const pct = (bp: number) => `${bp / 100} %`;
@@ -245,12 +245,17 @@ export function buildPrice(inputs: PriceInputs, figures: PriceFigures): PriceBui
         : `${money(beforeRounding)} rounded ${s.roundingMode === 'up' ? 'up' : 'to the nearest (half up)'} multiple of ${money(step)} = ${money(netMinor)}`,
     amountMinor: roundingMinor,
   });
-  lines.push({ key: 'net', label: 'Net', arithmetic: `${money(subtotalMinor)} + ${money(marginMinor)} + ${money(roundingMinor)}`, amountMinor: netMinor });
+  lines.push({
+    key: 'net',
+    label: 'Net',
+    arithmetic: `${money(subtotalMinor)} + ${money(marginMinor)} ${roundingMinor < 0 ? '−' : '+'} ${money(Math.abs(roundingMinor))} = ${money(netMinor)}`,
+    amountMinor: netMinor,
+  });
   const taxBp = whole('taxBp', s.taxBp);
   const taxMinor = mulDivRound(netMinor, taxBp, 10_000);
   lines.push({ key: 'tax', label: 'Tax', arithmetic: `${money(netMinor)} × ${pct(taxBp)} = ${money(taxMinor)}`, amountMinor: taxMinor });
   const totalMinor = netMinor + taxMinor;
-  lines.push({ key: 'total', label: 'Total', arithmetic: `${money(netMinor)} + ${money(taxMinor)}`, amountMinor: totalMinor });
+  lines.push({ key: 'total', label: 'Total', arithmetic: `${money(netMinor)} + ${money(taxMinor)} = ${money(totalMinor)}`, amountMinor: totalMinor });
 
   return { currency: cur, sheets, machineS, holdDownS, subtotalMinor, marginMinor, roundingMinor, netMinor, taxMinor, totalMinor, lines };
 }

@@ -108,13 +108,19 @@ async function waitForMailCount(address: string, count: number): Promise<Capture
   }
 }
 
-/** The text of a PDF as pdf2json extracts it. */
+/**
+ * The text of a PDF as pdf2json extracts it. pdf2json 3.1.6 reads the Buffer's whole
+ * underlying ArrayBuffer, so a small Buffer cut from Node's shared pool (byteOffset > 0) reads
+ * as garbage ("Invalid XRef stream header"); the bytes go in a Buffer of their own.
+ */
 function pdfText(pdf: Buffer): Promise<string> {
+  const own = Buffer.alloc(pdf.length);
+  pdf.copy(own);
   return new Promise((resolve, reject) => {
     const parser = new PDFParser(null, true);
-    parser.on('pdfParser_dataError', (e) => reject(e instanceof Error ? e : new Error(String((e as { parserError?: unknown }).parserError ?? e))));
+    parser.on('pdfParser_dataError', (e) => reject(new Error(String((e as { parserError?: unknown }).parserError ?? e))));
     parser.on('pdfParser_dataReady', () => resolve(parser.getRawTextContent()));
-    parser.parseBuffer(pdf);
+    parser.parseBuffer(own);
   });
 }
 

@@ -30,14 +30,24 @@ export default async function CustomerQuotePage({ params }: { params: Promise<{ 
   const closed = CLOSED[q.state];
   return (
     <main id="main" className="mx-auto max-w-3xl px-4 py-10">
-      <p className="text-ink-soft">{q.shopName}</p>
-      {q.shopAddress ? <p className="whitespace-pre-line text-sm text-ink-soft">{q.shopAddress}</p> : null}
-      <h1 className="mt-4">Quote {q.number}</h1>
-      <p className="mt-2">
-        For {q.customerName}: {q.jobTitle}
-        {q.validUntil ? <>, valid until <span className="figure">{q.validUntil}</span></> : null}
-      </p>
-      <table className="mt-6 w-full border-collapse text-left">
+      <header className="border-b-2 border-rule pb-4">
+        <p className="text-lg font-bold">{q.shopName}</p>
+        {q.shopAddress ? <p className="whitespace-pre-line text-sm text-ink-soft">{q.shopAddress}</p> : null}
+      </header>
+      <h1 className="mt-6">Quote {q.number}</h1>
+      <dl className="mt-3 grid gap-x-6 gap-y-1 sm:grid-cols-[max-content_1fr]">
+        <dt className="text-ink-soft">For</dt>
+        <dd className="font-bold">{q.customerName}</dd>
+        <dt className="text-ink-soft">Job</dt>
+        <dd className="font-bold">{q.jobTitle}</dd>
+        {q.validUntil ? (
+          <>
+            <dt className="text-ink-soft">Valid until</dt>
+            <dd className="figure font-bold">{q.validUntil}</dd>
+          </>
+        ) : null}
+      </dl>
+      <table className="mt-6 w-full border-collapse rounded-md bg-panel text-left">
         <caption className="sr-only">Quote lines</caption>
         <thead>
           <tr className="border-b-2 border-rule text-sm text-ink-soft">
@@ -51,7 +61,7 @@ export default async function CustomerQuotePage({ params }: { params: Promise<{ 
             <tr key={l.key} className={`border-b border-rule-light align-top ${l.key === 'total' ? 'font-bold' : ''}`}>
               <th scope="row" className="py-1 pr-3">{l.label}</th>
               <td className="figure py-1 pr-3 text-sm">{l.arithmetic}</td>
-              <td className="figure py-1 text-right">{l.amountMinor === null ? '' : formatMoney(l.amountMinor, q.currency)}</td>
+              <td className="figure whitespace-nowrap py-1 text-right">{l.amountMinor === null ? '' : formatMoney(l.amountMinor, q.currency)}</td>
             </tr>
           ))}
         </tbody>

@@ -122,7 +122,7 @@ describe('buildPrice: rules', () => {
     expect(formatMoney(123450, 'EUR')).toBe('EUR 1,234.50');
     expect(formatMoney(5, 'EUR')).toBe('EUR 0.05');
     expect(formatMoney(1234, 'JPY')).toBe('JPY 1,234');
-    expect(formatMoney(-5, 'EUR')).toBe('−EUR 0.05');
+    expect(formatMoney(-5, 'EUR')).toBe('EUR −0.05');
   });
   it('frozen figures: the JSON copy stored with a quote gives the same total after the shop changes its settings', () => {
     const frozen = JSON.parse(JSON.stringify(figures)) as PriceFigures;
