@@ -96,7 +96,9 @@ export interface PageRule {
 /** In navigation order. */
 export const PAGES = {
   jobs: { href: '/jobs', label: 'Jobs', needs: 'jobs:read' },
+  dashboard: { href: '/dashboard', label: 'Dashboard', needs: 'dashboard:read' },
   preview: { href: '/preview', label: 'Preview', needs: 'programs:read' },
+  runs: { href: '/runs', label: 'Runs', needs: 'runs:read' },
   machines: { href: '/machines', label: 'Machines', needs: 'machines:read' },
   materials: { href: '/materials', label: 'Materials', needs: 'materials:read' },
   customers: { href: '/customers', label: 'Customers', needs: 'customers:read' },
@@ -122,7 +124,7 @@ export function pagesFor(role: Role): { key: PageKey; href: string; label: strin
   return (Object.keys(PAGES) as PageKey[]).filter((key) => canSee(role, key)).map((key) => ({ key, href: PAGES[key].href, label: PAGES[key].label }));
 }
 
-/** Where a role lands after signing in: its first page . Every role can see jobs. */
+/** Where a role lands after signing in: the dashboard for the office (admin, estimator), the jobs page for everyone else. */
 export function homeFor(role: Role): string {
-  return pagesFor(role)[0]?.href ?? '/jobs';
+  return canSee(role, 'dashboard') ? PAGES.dashboard.href : PAGES.jobs.href;
 }

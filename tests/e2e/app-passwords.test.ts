@@ -50,7 +50,7 @@ describe('one-time password, then one of their own (V2.1.5)', () => {
     const signIn = new SignInPage(page, server.baseUrl);
     await signIn.open();
     await signIn.signIn('ada@alder-finch.example', DEMO_PASSWORD);
-    await page.waitForURL(/\/jobs$/);
+    await page.waitForURL(/\/dashboard$/);
     await page.goto(`${server.baseUrl}/admin/users`);
     const row = page.getByRole('table', { name: "Your shop's users" }).locator('tbody tr', { hasText: USER.email });
     await row.getByText('One-time password…').click();

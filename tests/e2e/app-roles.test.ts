@@ -34,10 +34,10 @@ async function freshPage() {
 
 // Expectations from the role table as the product states it (lib/auth/roles.ts header).
 const ROLES = [
-  { email: 'ada@alder-finch.example', role: 'Admin', nav: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'], forbidden: null },
-  { email: 'priya@alder-finch.example', role: 'Programmer', nav: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
-  { email: 'tomas@alder-finch.example', role: 'Estimator', nav: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
-  { email: 'lena@alder-finch.example', role: 'Operator', nav: ['Jobs', 'Preview', 'Machines', 'Materials'], forbidden: '/customers' },
+  { email: 'ada@alder-finch.example', role: 'Admin', home: 'Dashboard', nav: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'], forbidden: null },
+  { email: 'priya@alder-finch.example', role: 'Programmer', home: 'Jobs', nav: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
+  { email: 'tomas@alder-finch.example', role: 'Estimator', home: 'Dashboard', nav: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'], forbidden: '/admin/users' },
+  { email: 'lena@alder-finch.example', role: 'Operator', home: 'Jobs', nav: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials'], forbidden: '/customers' },
 ] as const;
 
 describe('signing in as each demo role', () => {
@@ -48,11 +48,12 @@ describe('signing in as each demo role', () => {
       const shell = new AppShell(page);
       await signIn.open();
       await signIn.signIn(r.email, DEMO_PASSWORD);
-      await page.waitForURL(/\/jobs$/);
+      await page.waitForURL(r.home === 'Dashboard' ? /\/dashboard$/ : /\/jobs$/);
       await shell.waitUntilSignedIn();
       expect(await shell.navLabels()).toEqual(r.nav);
       expect(await shell.roleShown()).toBe(r.role);
-      expect(await shell.currentPageLabel()).toBe('Jobs');
+      expect(await shell.currentPageLabel()).toBe(r.home);
+      if (r.home !== 'Jobs') await page.goto(`${server.baseUrl}/jobs`);
       expect((await new JobsPage(page, server.baseUrl).titles()).length).toBeGreaterThan(0);
 
       if (r.forbidden) {

@@ -86,6 +86,8 @@ function expectNoProblems(problems: Problems, where: string) {
 
 const SIGNED_IN_PAGES = [
   { path: '/jobs', heading: 'Jobs', status: 200 },
+  { path: '/dashboard', heading: 'Dashboard', status: 200 },
+  { path: '/runs', heading: 'Runs: estimated vs actual', status: 200 },
   { path: '/machines', heading: 'Machines', status: 200 },
   { path: '/machines/new', heading: 'New machine', status: 200 },
   { path: '/materials', heading: 'Materials', status: 200 },
@@ -113,9 +115,9 @@ describe('every page under the Content Security Policy', () => {
     const signIn = new SignInPage(page, server.baseUrl);
     await signIn.open();
     await signIn.signIn('ada@alder-finch.example', DEMO_PASSWORD);
-    await page.waitForURL(/\/jobs$/);
+    await page.waitForURL(/\/dashboard$/);
     await new AppShell(page).waitUntilSignedIn();
-    expectNoProblems(problems, 'sign-in and the first jobs page');
+    expectNoProblems(problems, 'sign-in and the dashboard');
 
     for (const p of SIGNED_IN_PAGES) {
       const url = `${server.baseUrl}${p.path}`;
@@ -135,7 +137,7 @@ describe('every page under the Content Security Policy', () => {
     const signIn = new SignInPage(page, server.baseUrl);
     await signIn.open();
     await signIn.signIn('ada@alder-finch.example', DEMO_PASSWORD);
-    await page.waitForURL(/\/jobs$/);
+    await page.waitForURL(/\/dashboard$/);
     const shell = new AppShell(page);
     await shell.waitUntilSignedIn();
     expect(await hydrated(page, '[data-testid="main-nav"]')).toBe(true);

@@ -73,7 +73,8 @@ async function signedInPage(email: string) {
   const signIn = new SignInPage(page, server.baseUrl);
   await signIn.open();
   await signIn.signIn(email, DEMO_PASSWORD);
-  await page.waitForURL(/\/jobs$/);
+  // admins and estimators land on the dashboard, the others on the jobs page
+  await page.waitForURL(/\/(dashboard|jobs)$/);
   return page;
 }
 

@@ -70,10 +70,10 @@ describe('role table', () => {
 
 describe('navigation', () => {
   const expected: Record<Role, string[]> = {
-    admin: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'],
-    programmer: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'],
-    estimator: ['Jobs', 'Preview', 'Machines', 'Materials', 'Customers'],
-    operator: ['Jobs', 'Preview', 'Machines', 'Materials'],
+    admin: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers', 'Users', 'Settings'],
+    programmer: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'],
+    estimator: ['Jobs', 'Dashboard', 'Preview', 'Runs', 'Machines', 'Materials', 'Customers'],
+    operator: ['Jobs', 'Preview', 'Runs', 'Machines', 'Materials'],
   };
 
   it.each(ROLES)('%s sees exactly its pages, in navigation order', (role) => {
@@ -91,8 +91,8 @@ describe('navigation', () => {
     }
   });
 
-  it('every role starts on the jobs page', () => {
-    for (const role of ROLES) expect(homeFor(role)).toBe('/jobs');
+  it('admins and estimators start on the dashboard, programmers and operators on the jobs page (issue 15)', () => {
+    expect(Object.fromEntries(ROLES.map((role) => [role, homeFor(role)]))).toEqual({ admin: '/dashboard', programmer: '/jobs', estimator: '/dashboard', operator: '/jobs' });
   });
 });
 
