@@ -116,6 +116,9 @@ export function csvText<T>(columns: readonly CsvColumn<T>[], rows: readonly T[],
   if (records.length === 0) return '';
   return stringify(records, {
     record_delimiter: 'windows',
+    // csv-stringify quotes a field holding the record delimiter (CRLF) but not a bare LF or
+    // CR; a note typed on one system and read on another holds either, so both are quoted
+    quoted_match: /[\r\n]/,
     escape_formulas: true,
     cast: { boolean: (v) => (v ? 'true' : 'false') },
   });
