@@ -204,9 +204,10 @@ describe('after sign-in (V5.1.5, finding 1)', () => {
   it('signed out, the form is given a same-origin path only', async () => {
     const page = await send<string>(`${server.baseUrl}/sign-in?callbackUrl=${encodeURIComponent('/.//evil.example/phish')}`, { headers: { accept: 'text/html' } });
     expect(page.status).toBe(200);
-    // the page's own props (React's flight data in the HTML): the form goes to /jobs
+    // the page's own props (React's flight data in the HTML): the form goes to the root, which
+    // sends each role to its home (the dashboard or the jobs page)
     const props = /callbackPath\\?":\\?"([^"\\]*)/.exec(String(page.body));
-    expect(props?.[1]).toBe('/jobs');
+    expect(props?.[1]).toBe('/');
   });
 });
 

@@ -21,7 +21,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       <div className="w-full max-w-md rounded-lg border-2 border-rule bg-panel p-8 shadow-sm">
         <p className="mb-1 font-mono text-sm uppercase tracking-widest text-spruce">Kerfcast</p>
         <h1 className="mb-6">Sign in</h1>
-        <SignInForm callbackPath={safeCallbackPath(requested)} initialError={signInErrorMessage(first(params.error))} />
+        <SignInForm callbackPath={safeCallbackPath(requested, '/')} initialError={signInErrorMessage(first(params.error))} />
       </div>
     </main>
   );
