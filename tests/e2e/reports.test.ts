@@ -83,6 +83,7 @@ describe('runs: estimated vs actual', () => {
     }
     await page.evaluate(() => document.fonts.ready);
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'runs-report.png'), fullPage: true });
+    await page.getByRole('region', { name: 'Charts' }).screenshot({ path: path.join(SCREENSHOT_DIR, 'runs-charts.png') });
     expect(problems).toEqual([]);
   });
 
