@@ -187,7 +187,8 @@ describe('an estimator quotes a job and the customer accepts', () => {
   });
 
   it('the customer opens the link from the e-mail, signed out, and accepts once', async () => {
-    const link = await customerLink(`Quote ${quoteNumber} `);
+    // numbers are per shop, so other shops' tests send the same number: the job's title tells them apart
+    const link = await customerLink(`Quote ${quoteNumber} from Alder & Finch Shopfitting: ${TITLE}`);
     expect(link.startsWith(`${server.baseUrl}/q/`)).toBe(true);
     await browser.context.clearCookies();
     const page = await browser.context.newPage();
