@@ -10,7 +10,8 @@ import { db } from '@/db/client';
 import { estimates, jobs, machines, programs, shops } from '@/db/schema';
 import { getShopSettings } from '@/db/queries/shop-settings';
 import { compareHoldDowns, HOLD_DOWN_CAUTION, type HoldComparison } from '@/lib/holddown/compare';
-import { HOLD_METHODS_DOC_VERSION, type HoldMethodsDoc } from '@/lib/holddown/types';
+import { ruleOutReasons } from '@/lib/holddown/rule-out';
+import { HOLD_METHODS_DOC_VERSION, type HoldMethodsDoc, type HoldOptionId } from '@/lib/holddown/types';
 import { getObject } from '@/lib/storage/s3';
 import type { EstimateStatus } from '@/lib/validation/enums';
 
@@ -35,8 +36,8 @@ function isDoc(value: unknown): value is HoldMethodsDoc {
   return !!v && v.version === HOLD_METHODS_DOC_VERSION && Array.isArray(v.parts) && Array.isArray(v.methods);
 }
 
-/** null: no such estimate in this shop. */
-export async function getHoldDownComparison(shopId: number, estimateId: number): Promise<HoldDownAnswer | null> {
+/** null: no such estimate in this shop. `ruledOut`: methods the job cannot use (lib/holddown/rule-out.ts). */
+export async function getHoldDownComparison(shopId: number, estimateId: number, ruledOut: readonly HoldOptionId[] = []): Promise<HoldDownAnswer | null> {
   const [row] = await db
     .select({ estimate: estimates, jobId: jobs.id, quantity: jobs.quantity, machineRate: machines.hourlyRateMinor, currency: shops.currency })
     .from(estimates)
@@ -70,6 +71,6 @@ export async function getHoldDownComparison(shopId: number, estimateId: number):
     );
   }
   const settings = await getShopSettings(shopId);
-  const comparison = compareHoldDowns({ doc, settings, machineRateMinorPerHour: row.machineRate, currency: row.currency, quantity });
+  const comparison = compareHoldDowns({ doc, settings, machineRateMinorPerHour: row.machineRate, currency: row.currency, quantity, excluded: ruleOutReasons(ruledOut) });
   return { ...base, availability: 'ready', ...comparison };
 }

@@ -30,6 +30,7 @@ import { resolveSettings } from '../analysis/settings';
 import { holdDownLabour, type HoldDownLabourSettings, type HoldDownLabourStep } from '../quotes/hold-down-labour';
 import { formatMoney, mulDivRound } from '../quotes/price';
 import type { HoldDown } from '../validation/enums';
+import { partRuns } from './rule-out';
 import type { HoldMethodAnalysis, HoldMethodsDoc, HoldOptionId, HoldPart } from './types';
 
 export const HOLD_DOWN_CAUTION =
@@ -279,7 +280,17 @@ export function compareHoldDowns(input: CompareInput): HoldComparison {
       (runnerUp ? ` Runner-up: ${runnerUp.label.toLowerCase()} at ${money(runnerUp.jobCostMinor)}.` : ' No other method holds every part.') +
       (liftOf(recommended) ? ` It carries a warning: ${recommended.warnings[0] ?? 'sheet lift'}` : '');
   } else {
-    const worst = options.map((o) => `${o.label}: ${o.unheldParts.length} of ${partCount} not held`).join('; ');
+    const worst = options
+      .map((o) =>
+        excluded[o.method]
+          ? `${o.label}: ruled out for this job`
+          : o.unheldParts.length > 0
+            ? `${o.label}: ${o.unheldParts.length} of ${partCount} not held (${partRuns(o.unheldParts.map((u) => u.order))})`
+            : o.errorCount > 0
+              ? `${o.label}: holds every part but raises ${plural(o.errorCount, 'error')}`
+              : `${o.label}: holds every part`,
+      )
+      .join('; ');
     note = `No method holds every part. ${worst}.`;
     const vac = options.filter((o) => o.holdDown === 'vacuum' && !excluded[o.method]);
     for (const o of vac) {
@@ -294,7 +305,9 @@ export function compareHoldDowns(input: CompareInput): HoldComparison {
     }
     const noTabs = doc.parts.filter((p) => p.tabs === 0 && p.skinMm === 0).length;
     if (noTabs > 0) wouldChange.push(`Tabs or an onion skin left in the CAM program on the ${plural(noTabs, 'part')} that have neither: they would hold under any method, at the cost of trimming per tab or a skin pass.`);
-    if (excluded['tape-glue'] || options.some((o) => o.method === 'tape-glue' && !o.holdsAll)) {
+    if (excluded['tape-glue']) {
+      wouldChange.push('A method that does not depend on friction: tape and glue, ruled out here, holds a part by its bond whatever its size.');
+    } else if (options.some((o) => o.method === 'tape-glue' && !o.holdsAll)) {
       wouldChange.push('A method that does not depend on friction, such as tape and glue, which holds a part by its bond whatever its size.');
     }
   }

@@ -19,6 +19,7 @@ import { priceTagNest } from '@/fixtures/price-tag-nest';
 import { holdMethods, type HoldMethodsJob } from '@/lib/estimate/hold-methods';
 import { runEstimate } from '@/lib/estimate/run-estimate';
 import { compareHoldDowns, type CompareSettings } from '@/lib/holddown/compare';
+import { partRuns, RULE_OUT_REASONS, ruleOutQuerySchema, ruleOutReasons } from '@/lib/holddown/rule-out';
 import type { HoldMethodsDoc } from '@/lib/holddown/types';
 import { machineProfileSchema } from '@/lib/validation/machine-profile';
 
@@ -169,11 +170,14 @@ describe('each method’s cost arithmetic (defaults, labour 4000/h, machine 9500
 describe('no method holds every part', () => {
   it('says which parts fail under each and what would change the verdict', () => {
     const doc = analysed(job60);
-    const cmp = compareHoldDowns({ doc, settings: DEFAULTS, machineRateMinorPerHour: 9500, currency: 'EUR', quantity: 240, excluded: { 'tape-glue': 'the customer’s parts may not be glued' } });
+    // the demo's nest with tape and glue ruled out for the job (as the program page's "Methods
+    // this job cannot use" asks the route): the one method that holds any part is gone
+    const cmp = compareHoldDowns({ doc, settings: DEFAULTS, machineRateMinorPerHour: 9500, currency: 'EUR', quantity: 240, excluded: ruleOutReasons(['tape-glue']) });
     expect(cmp.recommended).toBeNull();
     expect(cmp.runnerUp).toBeNull();
-    expect(cmp.note).toMatch(/^No method holds every part\. Vacuum at 60\.0 kPa \(the job’s level\): 64 of 64 not held;/);
-    expect(cmp.options.find((o) => o.method === 'tape-glue')!.ruledOut).toBe('ruled out for this job: the customer’s parts may not be glued');
+    expect(cmp.note).toMatch(/^No method holds every part\. Vacuum at 60\.0 kPa \(the job’s level\): 64 of 64 not held \(parts 1–64\); Vacuum at 61\.0 kPa \(the machine’s level\): 64 of 64 not held \(parts 1–64\); Tape and glue: ruled out for this job; Screws or clamps: 64 of 64 not held \(parts 1–64\);/);
+    expect(cmp.options.find((o) => o.method === 'tape-glue')!.ruledOut).toBe(`ruled out for this job: ${RULE_OUT_REASONS['tape-glue']}`);
+    expect(cmp.wouldChange.at(-1)).toBe('A method that does not depend on friction: tape and glue, ruled out here, holds a part by its bond whatever its size.');
     // F ÷ (μ·ΔP) = 45 N ÷ (0.45 × 60 kPa) = 1666.7 mm²
     expect(45 / (0.45 * 60e3) * 1e6).toBeCloseTo(1666.67, 1);
     expect(cmp.wouldChange[0]).toMatch(/^Larger parts: at 60\.0 kPa a part needs at least 1667 mm²/);
@@ -194,5 +198,36 @@ describe('no method holds every part', () => {
     expect(cmp.recommended).toBe('vacuum');
     expect(cmp.runnerUp).toBe('vacuum-machine');
     expect(cmp.options.find((o) => o.method === 'tape-glue')!.ruledOut).toMatch(/^holds every part but costs EUR/);
+  });
+});
+
+describe('methods ruled out for the job', () => {
+  it('parses ?ruleOut= as a set of method names and refuses an unknown one', () => {
+    expect(ruleOutQuerySchema.parse({}).ruleOut).toEqual([]);
+    expect(ruleOutQuerySchema.parse({ ruleOut: '' }).ruleOut).toEqual([]);
+    expect(ruleOutQuerySchema.parse({ ruleOut: 'tape-glue, clamps,tape-glue' }).ruleOut).toEqual(['tape-glue', 'clamps']);
+    const bad = ruleOutQuerySchema.safeParse({ ruleOut: 'tape-glue,glue' });
+    expect(bad.success).toBe(false);
+    expect(bad.error!.issues[0]!.message).toMatch(/^Not a hold-down method: glue\./);
+  });
+
+  it('names part numbers in runs', () => {
+    expect(partRuns([1])).toBe('part 1');
+    expect(partRuns([3, 1, 2, 7, 9, 10, 11, 12])).toBe('parts 1–3, 7, 9–12');
+  });
+
+  it('ruling out vacuum alone leaves tape and glue suggested; a ruled-out method is never suggested', () => {
+    const doc = analysed(job60);
+    const cmp = compareHoldDowns({ doc, settings: DEFAULTS, machineRateMinorPerHour: 9500, currency: 'EUR', quantity: 240, excluded: ruleOutReasons(['vacuum', 'vacuum-machine']) });
+    expect(cmp.recommended).toBe('tape-glue');
+    expect(cmp.options.find((o) => o.method === 'vacuum')!.ruledOut).toBe(`ruled out for this job: ${RULE_OUT_REASONS.vacuum}`);
+    const plate = readFileSync(path.join(root, 'fixtures/programs/checks/plate-with-hole-through.nc'), 'utf8');
+    const plateDoc = analysed({ sheet: { widthMm: 600, lengthMm: 400, thicknessMm: 18 }, zero: 'top', hold: 'vacuum', vacuumKpa: 60, machineVacuumKpa: 61 }, plate);
+    // vacuum would be suggested (it holds the plate at no cost); ruled out, the next one that holds is
+    const free = compareHoldDowns({ doc: plateDoc, settings: DEFAULTS, machineRateMinorPerHour: 9500, currency: 'EUR', quantity: 5 });
+    expect(free.recommended).toBe('vacuum');
+    const noVacuum = compareHoldDowns({ doc: plateDoc, settings: DEFAULTS, machineRateMinorPerHour: 9500, currency: 'EUR', quantity: 5, excluded: ruleOutReasons(['vacuum', 'vacuum-machine']) });
+    expect(noVacuum.recommended).not.toMatch(/^vacuum/);
+    expect(noVacuum.recommended).not.toBeNull();
   });
 });

@@ -151,7 +151,7 @@ export const ROUTE_SPECS: Record<string, RouteSpec> = {
     input: { wrongTypes: { body: { name: [], notes: 3 }, fields: ['name', 'notes'] }, boundaries: customerBoundaries },
   },
   'GET /api/estimates/[estimateId]': { action: 'estimates:read' },
-  'GET /api/estimates/[estimateId]/hold-down': { action: 'holddown:read' },
+  'GET /api/estimates/[estimateId]/hold-down': { action: 'holddown:read', query: '?ruleOut=tape-glue', badQueries: [{ query: '?ruleOut=glue', field: 'ruleOut' }] },
   'GET /api/jobs': {
     action: 'jobs:read',
     query: '?sort=due&perPage=50',
