@@ -17,6 +17,7 @@ import { machineRowToProfile, profileToMachineColumns } from './queries/machines
 import { readProfileFile } from './seed-machines';
 import { seedRuns } from './seed-runs';
 import { seedHoldDownDemo } from './seed-holddown';
+import { seedWeekJobs } from './seed-week';
 
 const fixturesDir = path.resolve(__dirname, '..', 'fixtures', 'machines');
 // A no-op update: "insert unless the unique key exists" without INSERT IGNORE's habit
@@ -142,6 +143,7 @@ export async function seed(db: Db = defaultDb): Promise<SeedSummary> {
 
     await seedRuns(tx, shopId);
     await seedHoldDownDemo(tx, shopId);
+    await seedWeekJobs(tx, shopId);
     return { shopId, logins: demoUsers.map((u) => ({ email: u.email, role: u.role, password: DEMO_PASSWORD })) };
   });
 }
