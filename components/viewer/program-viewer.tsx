@@ -90,7 +90,15 @@ export function ProgramViewer({ file, input, onResult }: ProgramViewerProps) {
 
 function Workspace({ result, input, bytes }: { result: ViewerResult; input: ViewerInput; bytes: Uint8Array | null }) {
   const store = useMemo(() => new PlaybackStore(result.cumulativeS, result.moves.line), [result]);
-  useEffect(() => () => store.dispose(), [store]);
+  useEffect(() => {
+    // the benchmark reads the playback loop's frame times from here
+    const w = window as unknown as { __kerfcastPlayback?: PlaybackStore };
+    w.__kerfcastPlayback = store;
+    return () => {
+      store.dispose();
+      if (w.__kerfcastPlayback === store) delete w.__kerfcastPlayback;
+    };
+  }, [store]);
   const data = useMemo(() => sceneData(result, input.job.sheet), [result, input.job.sheet]);
   const [mode, setMode] = useState<ColourMode>('kind');
   const [unit, setUnit] = useState<LengthUnit>(result.report.file.units === 'inch' ? 'inch' : 'mm');
