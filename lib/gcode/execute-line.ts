@@ -58,74 +58,112 @@ function reportScanIssues(ip: Interp, issues: number): boolean {
   return true;
 }
 
+/**
+ * One line, in named steps: the checks that skip a line, the G and M codes sorted into their
+ * modal groups, then the line's effects in the order of §3.8 (units first, see the header).
+ */
 export function executeLine(ip: Interp, issues: number): void {
+  if (issues !== 0 && !reportScanIssues(ip, issues)) return;
+  if (ip.w.wordCount === 0) return;
+  if (!lineRuns(ip) || !readGCodes(ip) || !readMCodes(ip)) return;
+  reportIgnoredWords(ip);
+  setUnitsFeedSpeedTool(ip);
+  changeToolAndSpindle(ip);
+  dwell(ip);
+  setModes(ip);
+  motionAndOffsets(ip);
+  const stop = mSlot[MGroup.stop];
+  if (stop === 0 || stop === 1 || stop === 60) ip.atRest(MoveKind.programStop, stop === 1 ? 1 : 0);
+  else if (stop === 2 || stop === 30) endProgram(ip);
+}
+
+/** false, with its diagnostic, for a line that is not interpreted: after the end, a bad number, a word twice, an O word */
+function lineRuns(ip: Interp): boolean {
   const w = ip.w;
   const d = ip.diag;
   const n = ip.lineNo;
   const t = ip.lineText;
-  if (issues !== 0 && !reportScanIssues(ip, issues)) return;
-  if (w.wordCount === 0) return;
   if (ip.ended && !ip.continueAfterEnd) {
     d.once('lines-after-program-end', n, 'code after M2/M30 is not interpreted', t);
-    return;
+    return false;
   }
   if (w.badWords.length) {
     const b = w.badWords[0];
     const word = `${String.fromCharCode(65 + b.letter)}${b.raw}`;
     const at = t.toUpperCase().indexOf(word.toUpperCase());
     d.add('bad-number', n, `${word} is not a number; the line is skipped`, t, at >= 0 ? at + 1 : undefined);
-    return;
+    return false;
   }
   if (w.duplicates || w.tooManyCodes) {
     const letter = 31 - Math.clz32(w.duplicates);
     d.add('duplicate-word', n, w.duplicates ? `${String.fromCharCode(65 + letter)} appears twice on the line; the line is skipped` : 'too many G or M words on one line; the line is skipped', t);
-    return;
+    return false;
   }
   if (w.has(L.O)) {
     d.add('o-code-unsupported', n, 'O-code subroutines and loops are not interpreted; the line is skipped', t);
-    return;
+    return false;
   }
+  return true;
+}
 
+/** the line's G codes into gSlot by modal group (code × 10); false, reported, for an unknown code or two of one group */
+function readGCodes(ip: Interp): boolean {
+  const w = ip.w;
   gSlot.fill(-1);
   for (let k = 0; k < w.gCount; k++) {
     const v = w.g[k] * 10;
     const code = Math.round(v);
     const group = Math.abs(v - code) < 1e-6 ? gGroup(code) : -1;
     if (group < 0) {
-      d.add('unsupported-g-code', n, `G${w.g[k]} is not interpreted; the line is skipped`, t);
-      return;
+      ip.diag.add('unsupported-g-code', ip.lineNo, `G${w.g[k]} is not interpreted; the line is skipped`, ip.lineText);
+      return false;
     }
     if (gSlot[group] >= 0) {
-      d.add('modal-group-conflict', n, `G${gSlot[group] / 10} and G${code / 10} are in the same modal group; the line is skipped`, t);
-      return;
+      ip.diag.add('modal-group-conflict', ip.lineNo, `G${gSlot[group] / 10} and G${code / 10} are in the same modal group; the line is skipped`, ip.lineText);
+      return false;
     }
     gSlot[group] = code;
   }
+  return true;
+}
+
+/** the line's M codes into mSlot by modal group (an unknown one is ignored); false, reported, for two of one group */
+function readMCodes(ip: Interp): boolean {
+  const w = ip.w;
   mSlot.fill(-1);
   for (let k = 0; k < w.mCount; k++) {
     const m = w.m[k];
     const group = Number.isInteger(m) ? mGroup(m) : -1;
     if (group < 0) {
-      d.add('unsupported-m-code', n, `M${m} is not interpreted; it is ignored`, t);
+      ip.diag.add('unsupported-m-code', ip.lineNo, `M${m} is not interpreted; it is ignored`, ip.lineText);
       continue;
     }
     const prev = mSlot[group];
     if (prev >= 0) {
       // NISTIR 6556 allows M7 and M8 together
       if (group === MGroup.coolant && prev + m === 15) continue;
-      d.add('modal-group-conflict', n, `M${prev} and M${m} are in the same modal group; the line is skipped`, t);
-      return;
+      ip.diag.add('modal-group-conflict', ip.lineNo, `M${prev} and M${m} are in the same modal group; the line is skipped`, ip.lineText);
+      return false;
     }
     mSlot[group] = m;
   }
-  if (w.letterMask & 7) d.once('rotary-axis-ignored', n, 'A, B and C words (rotary axes) are not interpreted; the rest of the line is', t);
+  return true;
+}
+
+/** rotary axes and letters that are not RS274/NGC words: named, the rest of the line runs */
+function reportIgnoredWords(ip: Interp): void {
+  const w = ip.w;
+  if (w.letterMask & 7) ip.diag.once('rotary-axis-ignored', ip.lineNo, 'A, B and C words (rotary axes) are not interpreted; the rest of the line is', ip.lineText);
   if (w.letterMask & IGNORED_LETTERS) {
     for (let letter = 0; letter < 26; letter++) {
-      if ((IGNORED_LETTERS >> letter) & 1 && w.has(letter)) d.add('unsupported-word', n, `${String.fromCharCode(65 + letter)} words are not RS274/NGC words; ignored`, t);
+      if ((IGNORED_LETTERS >> letter) & 1 && w.has(letter)) ip.diag.add('unsupported-word', ip.lineNo, `${String.fromCharCode(65 + letter)} words are not RS274/NGC words; ignored`, ip.lineText);
     }
   }
+}
 
-  // units first (see header), then the order of §3.8
+/** G20/G21 (before F, see the header), G93/G94, F, S, T */
+function setUnitsFeedSpeedTool(ip: Interp): void {
+  const w = ip.w;
   const units = gSlot[GGroup.units];
   if (units >= 0) {
     ip.inch = units === 200;
@@ -137,6 +175,13 @@ export function executeLine(ip: Interp, issues: number): void {
   if (w.has(L.F) && !ip.inverseTime) ip.feedMmPerMin = w.value[L.F] * ip.scale;
   if (w.has(L.S)) ip.spindleRpm = w.value[L.S];
   if (w.has(L.T)) ip.selectedTool = w.value[L.T];
+}
+
+/** M6, then M3/M4/M5 and M7/M8/M9 */
+function changeToolAndSpindle(ip: Interp): void {
+  const d = ip.diag;
+  const n = ip.lineNo;
+  const t = ip.lineText;
   if (mSlot[MGroup.toolChange] >= 0) {
     if (ip.selectedTool < 0) d.add('tool-change-without-tool', n, 'M6 with no T selected; the tool is unknown', t);
     else ip.tool = ip.selectedTool;
@@ -162,13 +207,22 @@ export function executeLine(ip: Interp, issues: number): void {
   }
   const coolant = mSlot[MGroup.coolant];
   if (coolant >= 0) ip.coolant = coolant !== 9;
+}
 
-  const nonModal = gSlot[GGroup.nonModal];
-  if (nonModal === 40) {
-    if (!w.has(L.P)) d.add('dwell-missing-p', n, 'G4 needs P, the dwell in seconds', t);
-    else if (w.value[L.P] < 0) d.add('dwell-negative', n, `dwell P ${w.value[L.P]} is negative (NISTIR 6556 §3.5.4)`, t);
-    else ip.atRest(MoveKind.dwell, w.value[L.P]);
-  }
+/** G4 P (seconds) */
+function dwell(ip: Interp): void {
+  if (gSlot[GGroup.nonModal] !== 40) return;
+  const w = ip.w;
+  if (!w.has(L.P)) ip.diag.add('dwell-missing-p', ip.lineNo, 'G4 needs P, the dwell in seconds', ip.lineText);
+  else if (w.value[L.P] < 0) ip.diag.add('dwell-negative', ip.lineNo, `dwell P ${w.value[L.P]} is negative (NISTIR 6556 §3.5.4)`, ip.lineText);
+  else ip.atRest(MoveKind.dwell, w.value[L.P]);
+}
+
+/** plane, cutter and length compensation, coordinate system, path mode, distance modes, retract mode */
+function setModes(ip: Interp): void {
+  const d = ip.diag;
+  const n = ip.lineNo;
+  const t = ip.lineText;
   const plane = gSlot[GGroup.plane];
   if (plane >= 0) ip.plane = plane === 170 ? 0 : plane === 180 ? 1 : 2;
   const comp = gSlot[GGroup.cutterComp];
@@ -184,7 +238,14 @@ export function executeLine(ip: Interp, issues: number): void {
   if (arcDist >= 0) ip.arcAbsolute = arcDist === 901;
   const ret = gSlot[GGroup.returnMode];
   if (ret >= 0) ip.retractOldZ = ret === 980;
+}
 
+/** the motion mode, then the axis words: G28/G30, G10, G92 (and its clearing), G53, or the motion in force */
+function motionAndOffsets(ip: Interp): void {
+  const d = ip.diag;
+  const n = ip.lineNo;
+  const t = ip.lineText;
+  const nonModal = gSlot[GGroup.nonModal];
   const motionG = gSlot[GGroup.motion];
   if (motionG >= 0) {
     if (motionG < 730 || motionG === 800) {
@@ -210,10 +271,6 @@ export function executeLine(ip: Interp, issues: number): void {
   } else {
     runMotion(ip, motionG >= 0);
   }
-
-  const stop = mSlot[MGroup.stop];
-  if (stop === 0 || stop === 1 || stop === 60) ip.atRest(MoveKind.programStop, stop === 1 ? 1 : 0);
-  else if (stop === 2 || stop === 30) endProgram(ip);
 }
 
 function runMotion(ip: Interp, explicit: boolean): void {
