@@ -36,7 +36,7 @@ const ROLE_MESSAGE = 'Your role does not allow this.';
 let server: AppServer;
 let t: TestDb;
 const jar = {} as Record<Role, CookieJar>;
-const S = { shopId: 0, users: {} as Record<Role, number>, spareUserId: 0, customerId: 0, materialId: 0, machineId: 0, toolId: 0, jobId: 0 };
+const S = { shopId: 0, users: {} as Record<Role, number>, spareUserId: 0, changingUserId: 0, customerId: 0, materialId: 0, machineId: 0, toolId: 0, jobId: 0 };
 const O = { shopId: 0, userId: 0, customerId: 0, materialId: 0, machineId: 0, toolId: 0, jobId: 0, programId: 0, estimateId: 0, quoteId: 0, runId: 0 };
 
 /** the error code's subject, as lib/errors.ts documents it: the action's resource in the singular */
@@ -81,6 +81,7 @@ async function createShops() {
     [{ id: S.users[role] }] = await db.insert(s.users).values({ shopId: S.shopId, email: `${role}@sweep-s.example`, name: `Sweep ${role}`, role, passwordHash: hash }).$returningId();
   }
   [{ id: S.spareUserId }] = await db.insert(s.users).values({ shopId: S.shopId, email: 'spare@sweep-s.example', name: 'Sweep spare', role: 'operator', passwordHash: hash }).$returningId();
+  [{ id: S.changingUserId }] = await db.insert(s.users).values({ shopId: S.shopId, email: 'changing@sweep-s.example', name: 'Sweep changing', role: 'operator', passwordHash: hash }).$returningId();
   [{ id: S.customerId }] = await db.insert(s.customers).values({ shopId: S.shopId, name: 'S Customer', email: 'orders@s-customer.example' }).$returningId();
   [{ id: S.materialId }] = await db.insert(s.materials).values({ shopId: S.shopId, name: 'S 18 mm birch', thicknessMm: 18, sheetWidthMm: 1220, sheetLengthMm: 2440, costPerSheetMinor: 6400 }).$returningId();
   [{ id: S.machineId }] = await db.insert(s.machines).values(machineRow(S.shopId, 'S Router')).$returningId();
@@ -474,3 +475,50 @@ describe('server actions over HTTP', () => {
   }
 });
 
+
+// --- requireRole / currentUser read the user row on every request ----------------------------
+
+describe('requireRole and currentUser judge each request by the user row as it is now, not as it was at sign-in', () => {
+  // The admin's paths (PATCH /api/users, the users page) also end the user's sessions
+  // (tests/integration/app-security-sessions.test.ts); here the row changes under a live
+  // session row, so only the guard's own reading of the user (db/queries/sessions.ts
+  // readLiveSession, through next-auth's session callback) can notice.
+  let changing: CookieJar;
+  beforeAll(async () => {
+    const result = await signInOverHttp('changing@sweep-s.example', DEMO_PASSWORD);
+    expect(result.signedIn).toBe(true);
+    changing = result.jar;
+  });
+
+  it('a changed role counts at the next request: the operator made estimator reads customers, and may no longer log runs', async () => {
+    expect((await callApi<{ error: { code: string } }>(changing, 'GET', '/api/customers')).body.error.code).toBe('forbidden:customer');
+    await t.db.update(s.users).set({ role: 'estimator' }).where(eq(s.users.id, S.changingUserId));
+    expect((await callApi(changing, 'GET', '/api/customers')).status).toBe(200);
+    const run = await callApi<{ error: { code: string } }>(changing, 'POST', '/api/runs', { programId: O.programId, version: 1, machineId: O.machineId });
+    expect([run.status, run.body.error.code]).toEqual([403, 'forbidden:run']);
+    const session = await callApi<{ user?: { role: string } }>(changing, 'GET', '/api/auth/session');
+    expect(session.body.user?.role).toBe('estimator');
+  });
+
+  it('a disabled user is signed out at the next request, though the session row was never ended', async () => {
+    expect((await callApi(changing, 'GET', '/api/jobs')).status).toBe(200);
+    await t.db.update(s.users).set({ disabled: true }).where(eq(s.users.id, S.changingUserId));
+    const [open] = await t.db.select().from(s.userSessions).where(eq(s.userSessions.userId, S.changingUserId));
+    expect(open.endedAt).toBeNull();
+    const answer = await callApi<{ error: { code: string } }>(changing, 'GET', '/api/jobs');
+    expect([answer.status, answer.body.error.code]).toEqual([401, 'unauthorized']);
+    expect((await callApi<{ user?: unknown }>(changing, 'GET', '/api/auth/session')).body.user).toBeUndefined();
+    const action = await callAction(changing, 'app/(shop)/customers/actions.ts', 'createCustomerAction', { name: 'After disable', email: 'after-disable@sweep.example' });
+    expect(actionState(action.text)).toEqual({ status: 'error', message: 'Sign in to continue.' });
+    expect(await t.db.select().from(s.customers).where(eq(s.customers.name, 'After disable'))).toEqual([]);
+  });
+
+  it('a user whose row now belongs to another shop is signed out (the token names the shop it was issued for)', async () => {
+    // control: enabled again in place (not by the admin's path, which ends sessions), the row reads again
+    await t.db.update(s.users).set({ disabled: false }).where(eq(s.users.id, S.changingUserId));
+    expect((await callApi(changing, 'GET', '/api/jobs')).status).toBe(200);
+    await t.db.update(s.users).set({ shopId: O.shopId }).where(eq(s.users.id, S.changingUserId));
+    const answer = await callApi<{ error: { code: string } }>(changing, 'GET', '/api/jobs');
+    expect(answer.status).toBe(401);
+  });
+});
