@@ -3,7 +3,7 @@
 // together); after the commit the caller calls wakeEstimateQueue(). The machine's current
 // version is the one estimated, and its profile snapshot (machine_versions) is written here
 // when the version has none yet, so the worker and the input key read one frozen profile.
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, isNull, sql } from 'drizzle-orm';
 import { machineRowToProfile } from '@/db/queries/machines';
 import { estimates, machines, machineVersions, tools, type EstimateSettingsDoc, type Job, type Machine } from '@/db/schema';
 import { AppError } from '@/lib/errors';
@@ -31,7 +31,10 @@ export interface EstimateRequested {
   status: EstimateStatus;
   /** true when a new row was queued */
   created: boolean;
-  /** true when a failed estimate of the same inputs was put back in the queue (a retry) */
+  /**
+   * true when a stored row of the same inputs was put back in the queue: a failed one (a
+   * retry), or a done one stored without the hold-down comparison's per-method analysis
+   */
   requeued: boolean;
 }
 
@@ -113,7 +116,7 @@ export async function requestEstimate(tx: DbHandle, request: EstimateRequest): P
 
   const findExisting = async (locking = false) => {
     const query = tx
-      .select({ id: estimates.id, status: estimates.status })
+      .select({ id: estimates.id, status: estimates.status, holdMethodsKey: estimates.holdMethodsKey })
       .from(estimates)
       .where(and(eq(estimates.shopId, request.shopId), eq(estimates.inputKey, key)))
       .limit(1);
@@ -154,6 +157,18 @@ export async function requestEstimate(tx: DbHandle, request: EstimateRequest): P
       .update(estimates)
       .set({ status: 'pending', progress: 0, leaseOwner: null, leaseUntil: null })
       .where(and(eq(estimates.id, existing.id), eq(estimates.status, 'failed')));
+    if (result.affectedRows === 1) return { id: existing.id, status: 'pending', created: false, requeued: true };
+    existing = (await findExisting(true)) ?? existing;
+  }
+  if (existing.status === 'done' && existing.holdMethodsKey === null) {
+    // stored without the per-method analysis (its analysis failed, or the row predates the
+    // comparison): computed again with the same inputs, which gives the same figures and now
+    // the comparison; a request is the only way back here, so a persistent fault costs one
+    // computation per request, never a loop
+    const [result] = await tx
+      .update(estimates)
+      .set({ status: 'pending', progress: 0, leaseOwner: null, leaseUntil: null })
+      .where(and(eq(estimates.id, existing.id), eq(estimates.status, 'done'), isNull(estimates.holdMethodsKey)));
     if (result.affectedRows === 1) return { id: existing.id, status: 'pending', created: false, requeued: true };
     existing = (await findExisting(true)) ?? existing;
   }

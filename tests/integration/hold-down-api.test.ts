@@ -3,7 +3,10 @@
 // 26.8 × 24.8 mm in 3 mm acrylic cut with a 3.175 mm up-cut tool (fixtures/price-tag-nest.ts).
 // The per-method analysis is stored with the estimate (shops/{shop}/estimates/{id}.hold-methods.json,
 // estimates.hold_methods_key) and read from there, not computed again; an estimate without it
-// says so; roles as lib/auth/roles.ts says (holddown:read), another shop's estimate 404.
+// says so, and a new request computes it (the same row again, or a new row for an estimate
+// made before the comparison existed); methods ruled out for the job (?ruleOut=) and the
+// no-method-holds verdict; roles as lib/auth/roles.ts says (holddown:read), another shop's
+// estimate 404.
 // Figures checked by hand: vacuum μ·ΔP·A = 0.45 × 61 kPa × 664.64 mm² = 18.2 N < 45 N
 // (PRODUCT.md, the analysis's common-practice defaults); tape and glue at the shop_settings
 // defaults (common practice): 4 sheets × 64 parts × 40 s = 10 240 s at 40.00/h = 113.78,
@@ -156,6 +159,67 @@ describe('the hold-down comparison of a stored estimate', () => {
     } finally {
       await t.db.update(s.estimates).set({ holdMethodsKey: row.holdMethodsKey }).where(eq(s.estimates.id, estimateId));
     }
+  });
+
+  it('asked for again, an estimate stored without the analysis is computed again with it: the same row, the same figures', async () => {
+    const [before] = await t.db.select().from(s.estimates).where(eq(s.estimates.id, estimateId));
+    await t.db.update(s.estimates).set({ holdMethodsKey: null }).where(eq(s.estimates.id, estimateId));
+    const r = await callApi<{ estimate: { id: number; status: string } }>(jar.programmer, 'POST', `/api/programs/${program.programId}/estimates`, { machineId: shop.machineId });
+    expect(r.status, JSON.stringify(r.body)).toBe(202);
+    expect(r.body.estimate).toEqual({ id: estimateId, status: 'pending' });
+    await waitDone(estimateId);
+    const [after] = await t.db.select().from(s.estimates).where(eq(s.estimates.id, estimateId));
+    expect(after.holdMethodsKey).toBe(`shops/${shop.shopId}/estimates/${estimateId}.hold-methods.json`);
+    // the same inputs give the same estimate (the engine is deterministic)
+    expect(after).toMatchObject({ totalSeconds: before.totalSeconds, calibratedSeconds: before.calibratedSeconds, partCount: 64, inputKey: before.inputKey });
+    const a = await callApi<Answer>(jar.estimator, 'GET', `/api/estimates/${estimateId}/hold-down`);
+    expect(a.body).toMatchObject({ availability: 'ready', recommended: 'tape-glue' });
+    // with the analysis stored, a further request finds it and computes nothing
+    const again = await callApi<{ estimate: { id: number; status: string } }>(jar.programmer, 'POST', `/api/programs/${program.programId}/estimates`, { machineId: shop.machineId });
+    expect(again.status).toBe(200);
+    expect(again.body.estimate).toMatchObject({ id: estimateId, status: 'done' });
+  });
+
+  it('an estimate made before the comparison existed (its settings without the machine’s level): a request makes a new one with it', async () => {
+    const [row] = await t.db.select().from(s.estimates).where(eq(s.estimates.id, estimateId));
+    const { machineVacuumKpa: _drop, ...olderSettings } = row.settings;
+    void _drop;
+    // the row as such an estimate was stored: another input key, no machine level, no analysis
+    await t.db.update(s.estimates).set({ holdMethodsKey: null, settings: olderSettings, inputKey: 'f'.repeat(64) }).where(eq(s.estimates.id, estimateId));
+    try {
+      const old = await callApi<Answer>(jar.estimator, 'GET', `/api/estimates/${estimateId}/hold-down`);
+      expect(old.body.availability).toBe('not-computed');
+      const r = await callApi<{ estimate: { id: number; status: string } }>(jar.programmer, 'POST', `/api/programs/${program.programId}/estimates`, { machineId: shop.machineId });
+      expect(r.status, JSON.stringify(r.body)).toBe(202);
+      const newer = r.body.estimate.id;
+      expect(newer).not.toBe(estimateId);
+      await waitDone(newer);
+      const a = await callApi<Answer>(jar.estimator, 'GET', `/api/estimates/${newer}/hold-down`);
+      expect(a.body).toMatchObject({ estimateId: newer, availability: 'ready', recommended: 'tape-glue' });
+      await t.db.delete(s.estimates).where(eq(s.estimates.id, newer));
+    } finally {
+      await t.db.update(s.estimates).set({ holdMethodsKey: row.holdMethodsKey, settings: row.settings, inputKey: row.inputKey }).where(eq(s.estimates.id, estimateId));
+    }
+  });
+
+  it('with tape and glue ruled out for the job no method holds every part: each method’s failing parts and what would change the verdict', async () => {
+    const r = await callApi<Answer & { wouldChange: string[] }>(jar.estimator, 'GET', `/api/estimates/${estimateId}/hold-down?ruleOut=tape-glue`);
+    expect(r.status, JSON.stringify(r.body)).toBe(200);
+    expect(r.body).toMatchObject({ availability: 'ready', recommended: null, runnerUp: null });
+    expect(r.body.note).toMatch(/^No method holds every part\. Vacuum at 61\.0 kPa \(the machine’s level\): 64 of 64 not held \(parts 1–64\); Tape and glue: ruled out for this job; Screws or clamps: 64 of 64 not held \(parts 1–64\); The program’s tabs: 64 of 64 not held \(parts 1–64\); Onion skin: 64 of 64 not held \(parts 1–64\)\./);
+    // F ÷ (μ·ΔP) = 45 N ÷ (0.45 × 61 kPa) = 1639.3 mm², against the holders' 664.64 mm²
+    expect(r.body.wouldChange[0]).toBe('Larger parts: at 61.0 kPa a part needs at least 1639 mm² (F ÷ (μ·ΔP) = 45 N ÷ (0.45 × 61.0 kPa)); the largest part not held has 665 mm².');
+    expect(r.body.wouldChange.slice(1)).toEqual([
+      'Tabs or an onion skin left in the CAM program on the 64 parts that have neither: they would hold under any method, at the cost of trimming per tab or a skin pass.',
+      'A method that does not depend on friction: tape and glue, ruled out here, holds a part by its bond whatever its size.',
+    ]);
+    expect(r.body.options.find((o) => o.method === 'tape-glue')!.ruledOut).toMatch(/^ruled out for this job: the parts may not be taped or glued/);
+    // ruling out vacuum changes nothing of the suggestion; an unknown name is refused, naming the field
+    const noVac = await callApi<Answer>(jar.estimator, 'GET', `/api/estimates/${estimateId}/hold-down?ruleOut=vacuum`);
+    expect(noVac.body.recommended).toBe('tape-glue');
+    const bad = await callApi<{ error: { code: string; fields: Record<string, string[]> } }>(jar.estimator, 'GET', `/api/estimates/${estimateId}/hold-down?ruleOut=glue`);
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.fields.ruleOut![0]).toMatch(/^Not a hold-down method: glue\./);
   });
 
   it('roles and shops: the operator is refused (403), another shop and a missing id answer 404', async () => {
