@@ -49,8 +49,8 @@ export function toolColour(slot: number): string {
 export interface ColourInput {
   viewKind: Uint8Array;
   speedShare: Float32Array;
-  /** per vertex [slot, flags]: the tool slot of each move is read from its first vertex */
-  tag: Uint8Array;
+  /** per move: its tool slot */
+  toolSlot: Uint8Array;
   moveSegStart: Uint32Array;
 }
 
@@ -58,7 +58,7 @@ export interface ColourInput {
 export function moveColour(input: ColourInput, mode: ColourMode, i: number): string {
   const kind = input.viewKind[i] as ViewKindCode;
   if (mode === 'kind' || kind === ViewKind.still) return KIND_HEX[kind];
-  if (mode === 'tool') return toolColour(input.tag[input.moveSegStart[i] * 4]);
+  if (mode === 'tool') return toolColour(input.toolSlot[i]);
   const step = speedStep(input.speedShare[i]);
   return step < 0 ? KIND_HEX[kind] : SPEED_COLOURS[step];
 }

@@ -5,7 +5,7 @@
 // draw range without touching the geometry. Per move also its view kind (path-kinds.ts) and its
 // achieved speed: length ÷ the planner's time for it, as a share of the commanded feed.
 // Everything is a typed array, transferred out of the worker; no object per move.
-import { arcChordCount, arcPoint, type MoveList, type Xyz } from '@/lib/gcode';
+import { arcChordCount, type MoveList } from '@/lib/gcode';
 import { feedKind, ViewKind } from './path-kinds';
 
 export interface ViewerPath {
@@ -21,6 +21,9 @@ export interface ViewerPath {
   viewKind: Uint8Array;
   /** per move: achieved ÷ commanded speed, 0–1; NaN where it has no meaning (rapids, records) */
   speedShare: Float32Array;
+  /** per move: its tool slot (index into tools), as in tag, kept per move so colouring by tool
+   *  never needs the vertex buffers (the page lets those go once the GPU has them) */
+  toolSlot: Uint8Array;
   /** tool numbers in the order first used; tag's slot indexes this */
   tools: number[];
   /** box of every vertex, mm; null for a program without motion */
@@ -29,8 +32,6 @@ export interface ViewerPath {
 
 export const TAG_RAPID = 1;
 export const TAG_FINDING = 2;
-
-const p: Xyz = { x: 0, y: 0, z: 0 };
 
 /** true when `line` is in the sorted list */
 function hasLine(sorted: Uint32Array, line: number): boolean {
@@ -74,6 +75,7 @@ export function buildViewerPath(
   const tag = new Uint8Array(segs * 4);
   const viewKind = new Uint8Array(n);
   const speedShare = new Float32Array(n);
+  const slots = new Uint8Array(n);
   const toolSlot = new Map<number, number>();
   const tools: number[] = [];
   const topZ = options.stockTopZ;
@@ -98,18 +100,65 @@ export function buildViewerPath(
       toolSlot.set(toolNo, slot);
       tools.push(toolNo);
     }
+    slots[i] = slot;
     const flags = (k === 0 ? TAG_RAPID : 0) | (hasLine(options.findingLines, moves.line[i]) ? TAG_FINDING : 0);
     const chords = k === 2 ? moveSegStart[i + 1] - moveSegStart[i] : 1;
     let length = 0;
     let px = x0, py = y0, pz = z0;
     let lowZ = z0 < z1 ? z0 : z1;
+    // an arc's chord ends, as lib/gcode arcPoint gives them (the same expressions, so the same
+    // numbers), with the start angle worked out once per arc instead of once per chord
+    let plane = 0, cA = 0, cB = 0, r = 0, sweep = 0, a0 = 0, sN = 0, eN = 0;
+    if (k === 2) {
+      const a = moves.arcs;
+      plane = a.plane[arc];
+      r = a.radius[arc];
+      sweep = a.sweep[arc];
+      // the arc's start is the previous move's end, as arcPoint takes it
+      const sx = i === 0 ? moves.startX : moves.x[i - 1];
+      const sy = i === 0 ? moves.startY : moves.y[i - 1];
+      const sz = i === 0 ? moves.startZ : moves.z[i - 1];
+      if (plane === 0) {
+        cA = a.cx[arc];
+        cB = a.cy[arc];
+        a0 = Math.atan2(sy - cB, sx - cA);
+        sN = sz;
+        eN = z1;
+      } else if (plane === 1) {
+        cA = a.cz[arc];
+        cB = a.cx[arc];
+        a0 = Math.atan2(sx - cB, sz - cA);
+        sN = sy;
+        eN = y1;
+      } else {
+        cA = a.cy[arc];
+        cB = a.cz[arc];
+        a0 = Math.atan2(sz - cB, sy - cA);
+        sN = sx;
+        eN = x1;
+      }
+    }
     for (let c = 1; c <= chords; c++) {
       let qx = x1, qy = y1, qz = z1;
       if (k === 2 && c < chords) {
-        arcPoint(moves, arc, c / chords, p);
-        qx = p.x;
-        qy = p.y;
-        qz = p.z;
+        const t = c / chords;
+        const ang = a0 + sweep * t;
+        const sA = cA + r * Math.cos(ang);
+        const sB = cB + r * Math.sin(ang);
+        const nn = sN + (eN - sN) * t;
+        if (plane === 0) {
+          qx = sA;
+          qy = sB;
+          qz = nn;
+        } else if (plane === 1) {
+          qz = sA;
+          qx = sB;
+          qy = nn;
+        } else {
+          qy = sA;
+          qz = sB;
+          qx = nn;
+        }
       }
       const segLen = Math.sqrt((qx - px) * (qx - px) + (qy - py) * (qy - py) + (qz - pz) * (qz - pz));
       const o = s * 6;
@@ -160,10 +209,26 @@ export function buildViewerPath(
     z0 = z1;
   }
   const bounds = segs > 0 ? { minX, minY, minZ, maxX, maxY, maxZ } : null;
-  return { positions, dash, tag, moveSegStart, viewKind, speedShare, tools, bounds };
+  return { positions, dash, tag, moveSegStart, viewKind, speedShare, toolSlot: slots, tools, bounds };
+}
+
+/** vertices in the segment buffer (two per segment); stays known once the buffers are released */
+export function vertexCountOf(path: ViewerPath): number {
+  return 2 * path.moveSegStart[path.moveSegStart.length - 1];
+}
+
+/**
+ * The page's own copy of the vertex buffers (positions, dash distances, tags) let go once the
+ * GPU holds them: the scene never reads them back (bounds, tool slots and kinds are per move),
+ * so keeping them would only double the path's memory. Called by the scene after the upload.
+ */
+export function releaseVertexBuffers(path: ViewerPath): void {
+  path.positions = new Float32Array(0);
+  path.dash = new Float32Array(0);
+  path.tag = new Uint8Array(0);
 }
 
 /** every buffer of the path, once each, for postMessage's transfer list */
 export function pathTransferables(path: ViewerPath): ArrayBuffer[] {
-  return [path.positions, path.dash, path.tag, path.moveSegStart, path.viewKind, path.speedShare].map((a) => a.buffer as ArrayBuffer);
+  return [path.positions, path.dash, path.tag, path.moveSegStart, path.viewKind, path.speedShare, path.toolSlot].map((a) => a.buffer as ArrayBuffer);
 }

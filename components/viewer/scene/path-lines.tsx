@@ -2,12 +2,14 @@
 // The whole path as one set of GPU buffers (positions, colours, dash distances, tags) shared
 // by two line-segment objects: the path already cut (full colour) and the path to come
 // (dimmed), split by each geometry's draw range, which every frame's playhead moves. A change
-// of colour mode rewrites the colour buffer in place; nothing else is ever rebuilt.
+// of colour mode writes a new colour buffer; nothing else is ever rebuilt. Once the GPU holds
+// a buffer the page's copy is let go (three.js onUpload): the vertices of a big program are
+// hundreds of megabytes, and nothing on the page reads them back.
 import { useFrame } from '@react-three/fiber';
 import { useEffect, useMemo, useRef } from 'react';
 import * as THREE from 'three';
 import { colourPath, type ColourMode } from '@/lib/viewer/colour-map';
-import type { ViewerPath } from '@/lib/viewer/path-build';
+import { releaseVertexBuffers, vertexCountOf, type ViewerPath } from '@/lib/viewer/path-build';
 import { doneVertexCount } from '@/lib/viewer/playhead';
 import type { PlaybackStore } from '../playback-store';
 import { createPathMaterial, createSharedUniforms, MAX_TOOL_SLOTS } from './path-material';
@@ -20,9 +22,9 @@ export interface PathFilters {
   markFindings: boolean;
 }
 
-/** the colour buffer rewritten in place for a colour mode (the GPU copy is refreshed once) */
-function applyColours(path: ViewerPath, mode: ColourMode, colour: THREE.BufferAttribute): void {
-  colourPath(path, mode, colour.array as Uint8Array);
+/** a colour buffer for a colour mode, uploaded once, then let go (see onUpload below) */
+function applyColours(path: ViewerPath, mode: ColourMode, colour: THREE.BufferAttribute, vertexCount: number): void {
+  colour.array = colourPath(path, mode, new Uint8Array(vertexCount * 3));
   colour.needsUpdate = true;
 }
 
@@ -38,11 +40,29 @@ function applyFilters(shared: ReturnType<typeof createSharedUniforms>, filters: 
 
 export function PathLines({ path, store, mode, filters, dashMm }: { path: ViewerPath; store: PlaybackStore; mode: ColourMode; filters: PathFilters; dashMm: number }) {
   const shared = useMemo(() => createSharedUniforms(), []);
-  const { done, ahead, colour } = useMemo(() => {
+  const { done, ahead, colour, vertexCount } = useMemo(() => {
+    const vertexCount = vertexCountOf(path);
     const position = new THREE.BufferAttribute(path.positions, 3);
-    const colourAttr = new THREE.BufferAttribute(new Uint8Array(path.positions.length), 3, true);
+    // its first contents come with the colour mode's effect, before the first frame
+    const colourAttr = new THREE.BufferAttribute(new Uint8Array(vertexCount * 3), 3, true);
     const dash = new THREE.BufferAttribute(path.dash, 1);
     const tag = new THREE.BufferAttribute(path.tag, 2);
+    // the GPU has them: drop the page's copies (the path's too), keeping the counts
+    let uploaded = 0;
+    const released = () => {
+      uploaded++;
+      if (uploaded < 3) return;
+      position.array = new Float32Array(0);
+      dash.array = new Float32Array(0);
+      tag.array = new Uint8Array(0);
+      releaseVertexBuffers(path);
+    };
+    position.onUpload(released);
+    dash.onUpload(released);
+    tag.onUpload(released);
+    colourAttr.onUpload(() => {
+      colourAttr.array = new Uint8Array(0);
+    });
     const make = () => {
       const g = new THREE.BufferGeometry();
       g.setAttribute('position', position);
@@ -56,11 +76,11 @@ export function PathLines({ path, store, mode, filters, dashMm }: { path: Viewer
       }
       return g;
     };
-    return { done: make(), ahead: make(), colour: colourAttr };
+    return { done: make(), ahead: make(), colour: colourAttr, vertexCount };
   }, [path]);
   const materials = useMemo(() => ({ done: createPathMaterial(shared, 0), ahead: createPathMaterial(shared, 0.72) }), [shared]);
 
-  useEffect(() => applyColours(path, mode, colour), [path, mode, colour]);
+  useEffect(() => applyColours(path, mode, colour, vertexCount), [path, mode, colour, vertexCount]);
   useEffect(() => applyFilters(shared, filters, path.tools, dashMm), [filters, shared, path, dashMm]);
 
   useEffect(
@@ -80,7 +100,7 @@ export function PathLines({ path, store, mode, filters, dashMm }: { path: Viewer
     if (count === last.current) return;
     last.current = count;
     done.setDrawRange(0, count);
-    ahead.setDrawRange(count, Math.max(0, path.positions.length / 3 - count));
+    ahead.setDrawRange(count, Math.max(0, vertexCount - count));
   });
 
   return (

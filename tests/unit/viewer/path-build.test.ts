@@ -4,6 +4,7 @@
 // t = L/v + v/a when the feed is reached (L ≥ v²/a), t = 2√(L/a) when it is not; and the
 // sagitta of a chord, r(1 − cos(φ/2)) (circle geometry), for the arc's chord count.
 import { describe, expect, it } from 'vitest';
+import { arcPoint, interpret } from '@/lib/gcode';
 import { estimate } from '@/lib/kinematics';
 import { buildViewerPath, TAG_FINDING, TAG_RAPID } from '@/lib/viewer/path-build';
 import { ViewKind } from '@/lib/viewer/path-kinds';
@@ -83,9 +84,33 @@ describe('segments', () => {
     expect(path.tools).toEqual([3]);
     expect(path.tag[1]).toBe(TAG_RAPID);
     expect(path.tag[5]).toBe(TAG_FINDING);
+    expect(Array.from(path.toolSlot.subarray(1))).toEqual([path.tag[0], path.tag[4]]);
     expect(path.dash[0]).toBe(0);
     expect(path.dash[1]).toBeCloseTo(50, 5); // a 30-40-50 triangle
     expect(path.dash[2]).toBe(-1);
     expect(path.bounds).toEqual({ minX: 0, minY: 0, minZ: -1, maxX: 30, maxY: 40, maxZ: 5 });
+  });
+});
+
+describe('arc chords in every plane', () => {
+  it('are the points lib/gcode arcPoint gives at c/n of the sweep (the arc geometry of NISTIR 6556 §3.5.3), to the last bit before float32', () => {
+    // a G17 quarter, a G18 half turn with a rise along Y, a G19 full helix turn down Z... in X
+    const text = 'G21 G90 G17\nG0 X10 Y0 Z-1\nG1 F1000\nG3 X0 Y10 I-10 J0\nG18\nG2 X20 Z-1 Y3 I10 K0\nG19\nG3 Y13 Z-1 X25 J5 K0\n';
+    const r = interpret(text, {});
+    expect(r.moves.arcs.count).toBe(3);
+    const e = estimate(r.moves, testProfile({ chordToleranceMm: 0.01 }));
+    const path = buildViewerPath(r.moves, e.cumulativeS, { stockTopZ: 0, chordToleranceMm: 0.01, findingLines: none });
+    const p = { x: 0, y: 0, z: 0 };
+    for (let a = 0; a < r.moves.arcs.count; a++) {
+      const i = r.moves.arcs.move[a];
+      const from = path.moveSegStart[i];
+      const n = path.moveSegStart[i + 1] - from;
+      expect(n).toBeGreaterThan(10);
+      for (let c = 1; c <= n; c++) {
+        arcPoint(r.moves, a, c / n, p);
+        const o = (from + c - 1) * 6 + 3;
+        expect([path.positions[o], path.positions[o + 1], path.positions[o + 2]]).toEqual([Math.fround(p.x), Math.fround(p.y), Math.fround(p.z)]);
+      }
+    }
   });
 });

@@ -56,7 +56,7 @@ describe('playhead on the planner’s clock', () => {
 });
 
 describe('colour by', () => {
-  const input = { viewKind: Uint8Array.of(ViewKind.rapid, ViewKind.cut, ViewKind.plunge), speedShare: Float32Array.of(Number.NaN, 0.85, 0.1), tag: Uint8Array.of(0, 1, 0, 1, 1, 0, 1, 0, 2, 0, 2, 0), moveSegStart: Uint32Array.of(0, 1, 2, 3) };
+  const input = { viewKind: Uint8Array.of(ViewKind.rapid, ViewKind.cut, ViewKind.plunge), speedShare: Float32Array.of(Number.NaN, 0.85, 0.1), toolSlot: Uint8Array.of(0, 1, 2), moveSegStart: Uint32Array.of(0, 1, 2, 3) };
   it('move kind, tool slot and achieved-speed step give one colour per move', () => {
     expect(moveColour(input, 'kind', 1)).toBe(PATH_COLOURS.cut);
     expect(moveColour(input, 'kind', 2)).toBe(PATH_COLOURS.plunge);
