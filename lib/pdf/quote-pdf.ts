@@ -1,16 +1,23 @@
 import 'server-only';
-// The quote as a PDF (pdfkit, A4), set in Helvetica from the font metrics pdfkit ships
-// (node_modules/pdfkit/js/data/*.afm): one of the PDF standard fonts every viewer has
-// (ISO 32000-1 §9.6.2.2), so nothing is embedded and every viewer draws it. (The WOFF2 files
-// of public/fonts are for the browser: pdfkit embeds them as they are, and PDF viewers draw
-// such a page blank.) Shop name and address, customer, job, the lines with their arithmetic,
-// totals, validity, terms, and the caution that the cut time is an estimate. The standard
-// fonts hold the WinAnsi set only: signs outside it are written out or reduced to their letter.
+// The quote as a PDF (pdfkit, A4), set in the shipped Atkinson Hyperlegible (public/fonts, SIL
+// Open Font License beside it) as TrueType: the .ttf files are the shipped .woff2 files
+// decompressed (WOFF 2.0, W3C Recommendation §5: the font data is the original sfnt), because a
+// PDF font program must be TrueType, CFF or OpenType (ISO 32000-1 §9.9) and viewers draw an
+// embedded WOFF2 file as a blank page. pdfkit embeds the subset of glyphs used (FontFile2).
+// Shop name and address, customer, job, the lines with their arithmetic, totals, validity,
+// terms, and the caution that the cut time is an estimate. The font holds Latin letters only:
+// signs outside the WinAnsi set (⌈ ⌉ ≥ …) are written out or reduced to their letter.
+import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import { formatMoney, type PriceLine } from '@/lib/quotes/price';
 
-const REGULAR = 'Helvetica';
-const BOLD = 'Helvetica-Bold';
+const FONT_DIR = path.join(process.cwd(), 'public', 'fonts', 'atkinson-hyperlegible');
+export const PDF_FONT_FILES = {
+  regular: path.join(FONT_DIR, 'atkinson-hyperlegible-latin-400-normal.ttf'),
+  bold: path.join(FONT_DIR, 'atkinson-hyperlegible-latin-700-normal.ttf'),
+} as const;
+const REGULAR = 'regular';
+const BOLD = 'bold';
 
 export const ESTIMATE_CAUTION =
   'The machine time in this quote is an estimate computed from the cutting program; the actual time on the machine can differ. ' +
@@ -55,7 +62,11 @@ const TOTAL_KEYS = new Set(['subtotal', 'margin', 'rounding', 'net', 'tax', 'tot
 
 export function quotePdf(q: QuotePdfInput): Promise<Buffer> {
   return new Promise((resolve, reject) => {
-    const doc = new PDFDocument({ size: 'A4', margin: 56, font: REGULAR, info: { Title: `Quote ${q.number}`, Author: q.shopName } });
+    // the shipped font from the start, so pdfkit's own default (Helvetica) is never set up
+    const doc = new PDFDocument({ size: 'A4', margin: 56, font: PDF_FONT_FILES.regular, info: { Title: `Quote ${q.number}`, Author: q.shopName } });
+    doc.registerFont(REGULAR, PDF_FONT_FILES.regular);
+    doc.registerFont(BOLD, PDF_FONT_FILES.bold);
+    doc.font(REGULAR);
     const chunks: Buffer[] = [];
     doc.on('data', (c: Buffer) => chunks.push(c));
     doc.on('end', () => resolve(Buffer.concat(chunks)));

@@ -1,14 +1,15 @@
-// The quote PDF (lib/pdf/quote-pdf.ts): set in the PDF standard fonts Helvetica and
-// Helvetica-Bold (ISO 32000-1 §9.6.2.2: every conforming reader has them), so no font
-// program is embedded — an embedded WOFF2 file, which PDF does not define as a font program
-// (ISO 32000-1 §9.9: Type 1, TrueType, CFF, OpenType only), made viewers draw the page blank.
-// Its text read back with pdf2json (a PDF text extractor from the npm registry); characters
-// outside WinAnsiEncoding (ISO 32000-1 Annex D.2) written out.
+// The quote PDF (lib/pdf/quote-pdf.ts): set in the shipped Atkinson Hyperlegible, embedded as
+// a TrueType font program (ISO 32000-1 §9.9 and §9.9 Table 126: /FontFile2 holds TrueType), the
+// .ttf files being the shipped .woff2 files decompressed (W3C WOFF 2.0 §5); no standard font
+// (an embedded WOFF2 file, which PDF does not define as a font program, made viewers draw the
+// page blank). Its text read back with pdf2json (a PDF text extractor from the npm registry)
+// through the ToUnicode map pdfkit writes; characters the font lacks written out.
+import { readFileSync } from 'node:fs';
 import { describe, expect, it, vi } from 'vitest';
 import PDFParser from 'pdf2json';
 
 vi.mock('server-only', () => ({}));
-const { quotePdf, winAnsi } = await import('@/lib/pdf/quote-pdf');
+const { PDF_FONT_FILES, quotePdf, winAnsi } = await import('@/lib/pdf/quote-pdf');
 
 /**
  * The text of a PDF as pdf2json extracts it. pdf2json 3.1.6 reads the Buffer's whole
@@ -46,13 +47,20 @@ const input = {
 };
 
 describe('quote PDF', () => {
-  it('uses the standard fonts and embeds no font program', async () => {
+  it('embeds the shipped font as TrueType subsets, regular and bold, and no standard font', async () => {
+    // the shipped files are TrueType ('\0\1\0\0', OpenType spec, table directory sfntVersion) decompressed from the .woff2 beside them ('wOF2')
+    for (const file of Object.values(PDF_FONT_FILES)) {
+      expect(readFileSync(file).subarray(0, 4).toString('hex')).toBe('00010000');
+      expect(readFileSync(file.replace(/\.ttf$/, '.woff2')).subarray(0, 4).toString('latin1')).toBe('wOF2');
+    }
     const pdf = await quotePdf(input);
     const raw = pdf.toString('latin1');
     expect(raw.startsWith('%PDF-')).toBe(true);
-    expect(raw).toMatch(/\/BaseFont \/Helvetica\b/);
-    expect(raw).toMatch(/\/BaseFont \/Helvetica-Bold\b/);
-    expect(raw).not.toMatch(/\/FontFile[23]?\b/);
+    // a subset's BaseFont is a six-letter tag, '+', and the font's PostScript name (ISO 32000-1 §9.6.4)
+    const names = [...raw.matchAll(/\/BaseFont \/([A-Z]{6}\+[A-Za-z-]+)/g)].map((m) => m[1]!.slice(7));
+    expect(new Set(names)).toEqual(new Set(['AtkinsonHyperlegible-Regular', 'AtkinsonHyperlegible-Bold']));
+    expect(raw.match(/\/FontFile2\b/g)).toHaveLength(2);
+    expect(raw).not.toMatch(/\/BaseFont \/Helvetica/);
   });
 
   it('reads back with the number, the lines, the total, the terms and the caution', async () => {
