@@ -61,17 +61,20 @@ function fmt(v: number): string {
   return String(Math.round(v * 1e5) / 1e5);
 }
 
+/**
+ * G2/G3: the end point, the centre from R (radiusCentre) or from I/J/K (offsetCentre), then
+ * the arc written with its centre in x, y, z order
+ */
 export function arcMove(ip: Interp, ccw: boolean): void {
   const w = ip.w;
   const p = ip.plane;
-  const text = ip.lineText;
   const hasR = w.has(L.R);
   if (hasR && (w.has(L.I) || w.has(L.J) || w.has(L.K))) {
-    ip.diag.add('arc-mixed-formats', ip.lineNo, 'an arc takes either R or I/J/K, not both; the arc is skipped', text);
+    ip.diag.add('arc-mixed-formats', ip.lineNo, 'an arc takes either R or I/J/K, not both; the arc is skipped', ip.lineText);
     return;
   }
   if (!ip.hasAxisWords()) {
-    ip.diag.add('arc-no-axis-word', ip.lineNo, `G${ccw ? 3 : 2} needs at least one axis word; the arc is skipped`, text);
+    ip.diag.add('arc-no-axis-word', ip.lineNo, `G${ccw ? 3 : 2} needs at least one axis word; the arc is skipped`, ip.lineText);
     return;
   }
   const ex = ip.targetX();
@@ -83,54 +86,10 @@ export function arcMove(ip: Interp, ccw: boolean): void {
   const sb = pick(aB, ip.x, ip.y, ip.z);
   const ea = pick(aA, ex, ey, ez);
   const eb = pick(aB, ex, ey, ez);
-  const unit = ip.inch ? 'in' : 'mm';
-  const tol = ip.arcEndRadiusToleranceMm;
-  let ca: number;
-  let cb: number;
-  let radius: number;
-  if (hasR) {
-    if (!w.has(aA) && !w.has(aB)) {
-      ip.diag.add('arc-radius-no-end', ip.lineNo, 'a radius-format arc needs an end word in its plane; the arc is skipped', text);
-      return;
-    }
-    if (Math.abs(ea - sa) < 1e-9 && Math.abs(eb - sb) < 1e-9) {
-      ip.diag.add('arc-radius-end-equals-start', ip.lineNo, 'a radius-format arc cannot end where it starts (use I/J/K for a full circle); the arc is skipped', text);
-      return;
-    }
-    centreFromRadius(sa, sb, ea, eb, w.value[L.R] * ip.scale, ccw, tol, rc);
-    if (!rc.ok) {
-      const half = Math.hypot(ea - sa, eb - sb) / 2 / ip.scale;
-      ip.diag.add('arc-radius-too-small', ip.lineNo, `R ${fmt(Math.abs(w.value[L.R]))} ${unit} is shorter than half the distance to the end point (${fmt(half)} ${unit}); the arc is skipped`, text);
-      return;
-    }
-    ca = rc.ca;
-    cb = rc.cb;
-    radius = rc.radius;
-  } else {
-    const oA = OFF_A[p];
-    const oB = OFF_B[p];
-    if (!w.has(oA) && !w.has(oB)) {
-      ip.diag.add('arc-no-offsets', ip.lineNo, 'a centre-format arc needs an offset in its plane (I/J for G17, I/K for G18, J/K for G19); the arc is skipped', text);
-      return;
-    }
-    const va = w.has(oA) ? w.value[oA] * ip.scale : 0;
-    const vb = w.has(oB) ? w.value[oB] * ip.scale : 0;
-    if (ip.arcAbsolute) {
-      // G90.1: the centre is a point in program coordinates
-      ca = w.has(oA) ? va + (aA === L.X ? ip.g92x : aA === L.Y ? ip.g92y : ip.g92z) : sa;
-      cb = w.has(oB) ? vb + (aB === L.X ? ip.g92x : aB === L.Y ? ip.g92y : ip.g92z) : sb;
-    } else {
-      ca = sa + va;
-      cb = sb + vb;
-    }
-    radius = Math.hypot(sa - ca, sb - cb);
-    const r1 = Math.hypot(ea - ca, eb - cb);
-    if (Math.abs(radius - r1) > tol) {
-      const lim = ip.inch ? '0.0002 in' : '0.002 mm';
-      ip.diag.add('arc-radius-mismatch', ip.lineNo, `arc start radius ${fmt(radius / ip.scale)} ${unit} and end radius ${fmt(r1 / ip.scale)} ${unit} differ by more than ${lim}; the arc is skipped`, text);
-      return;
-    }
-  }
+  if (!(hasR ? radiusCentre(ip, ccw, sa, sb, ea, eb) : offsetCentre(ip, sa, sb, ea, eb))) return;
+  const ca = rc.ca;
+  const cb = rc.cb;
+  const radius = rc.radius;
   const sweep = arcSweep(sa, sb, ea, eb, ca, cb, ccw, true);
   const sn = p === 0 ? ip.z : p === 1 ? ip.y : ip.x;
   const en = p === 0 ? ez : p === 1 ? ey : ex;
@@ -154,4 +113,72 @@ export function arcMove(ip: Interp, ccw: boolean): void {
   ip.x = ex;
   ip.y = ey;
   ip.z = ez;
+}
+
+/**
+ * a radius-format arc's centre in its plane, from its start (sa, sb), end (ea, eb) and R, into
+ * rc; false, reported, when the arc is skipped
+ */
+function radiusCentre(ip: Interp, ccw: boolean, sa: number, sb: number, ea: number, eb: number): boolean {
+  const w = ip.w;
+  const text = ip.lineText;
+  if (!w.has(AXIS_A[ip.plane]) && !w.has(AXIS_B[ip.plane])) {
+    ip.diag.add('arc-radius-no-end', ip.lineNo, 'a radius-format arc needs an end word in its plane; the arc is skipped', text);
+    return false;
+  }
+  if (Math.abs(ea - sa) < 1e-9 && Math.abs(eb - sb) < 1e-9) {
+    ip.diag.add('arc-radius-end-equals-start', ip.lineNo, 'a radius-format arc cannot end where it starts (use I/J/K for a full circle); the arc is skipped', text);
+    return false;
+  }
+  centreFromRadius(sa, sb, ea, eb, w.value[L.R] * ip.scale, ccw, ip.arcEndRadiusToleranceMm, rc);
+  if (!rc.ok) {
+    const unit = ip.inch ? 'in' : 'mm';
+    const half = Math.hypot(ea - sa, eb - sb) / 2 / ip.scale;
+    ip.diag.add('arc-radius-too-small', ip.lineNo, `R ${fmt(Math.abs(w.value[L.R]))} ${unit} is shorter than half the distance to the end point (${fmt(half)} ${unit}); the arc is skipped`, text);
+    return false;
+  }
+  return true;
+}
+
+/**
+ * a centre-format arc's centre in its plane from I/J/K (offsets, or a point under G90.1) and
+ * its radius, into rc; false, reported, when the offsets are missing or the start and end
+ * radii differ by more than the tolerance
+ */
+function offsetCentre(ip: Interp, sa: number, sb: number, ea: number, eb: number): boolean {
+  const w = ip.w;
+  const p = ip.plane;
+  const aA = AXIS_A[p];
+  const aB = AXIS_B[p];
+  const oA = OFF_A[p];
+  const oB = OFF_B[p];
+  if (!w.has(oA) && !w.has(oB)) {
+    ip.diag.add('arc-no-offsets', ip.lineNo, 'a centre-format arc needs an offset in its plane (I/J for G17, I/K for G18, J/K for G19); the arc is skipped', ip.lineText);
+    return false;
+  }
+  const va = w.has(oA) ? w.value[oA] * ip.scale : 0;
+  const vb = w.has(oB) ? w.value[oB] * ip.scale : 0;
+  let ca: number;
+  let cb: number;
+  if (ip.arcAbsolute) {
+    // G90.1: the centre is a point in program coordinates
+    ca = w.has(oA) ? va + (aA === L.X ? ip.g92x : aA === L.Y ? ip.g92y : ip.g92z) : sa;
+    cb = w.has(oB) ? vb + (aB === L.X ? ip.g92x : aB === L.Y ? ip.g92y : ip.g92z) : sb;
+  } else {
+    ca = sa + va;
+    cb = sb + vb;
+  }
+  const radius = Math.hypot(sa - ca, sb - cb);
+  const r1 = Math.hypot(ea - ca, eb - cb);
+  if (Math.abs(radius - r1) > ip.arcEndRadiusToleranceMm) {
+    const unit = ip.inch ? 'in' : 'mm';
+    const lim = ip.inch ? '0.0002 in' : '0.002 mm';
+    ip.diag.add('arc-radius-mismatch', ip.lineNo, `arc start radius ${fmt(radius / ip.scale)} ${unit} and end radius ${fmt(r1 / ip.scale)} ${unit} differ by more than ${lim}; the arc is skipped`, ip.lineText);
+    return false;
+  }
+  rc.ok = true;
+  rc.ca = ca;
+  rc.cb = cb;
+  rc.radius = radius;
+  return true;
 }
