@@ -5,9 +5,9 @@ import 'server-only';
 // answer by token. Every function takes the shop id, except the token ones, which find the
 // shop from the token's hash.
 import { createHash, randomBytes } from 'node:crypto';
-import { and, desc, eq, inArray, isNull, lt, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, lt, notInArray, sql } from 'drizzle-orm';
 import { db } from '@/db/client';
-import { customers, estimates, jobEvents, jobs, machines, mailLog, materials, quoteCounters, quotes, shops, type QuoteRow } from '@/db/schema';
+import { customers, estimates, jobEvents, jobs, machines, mailLog, materials, programs, quoteCounters, quotes, shops, type QuoteRow } from '@/db/schema';
 import { getShopSettings } from '@/db/queries/shop-settings';
 import { listJobPrograms } from '@/db/queries/programs';
 import { openEstimateReport } from '@/db/queries/estimates';
@@ -130,7 +130,15 @@ async function partsSummary(estimate: { id: number; reportKey: string | null }):
   return summary;
 }
 
-/** The job's done estimates (the latest of each program) with the figures a quote would use; null for no such job. */
+/** other finished estimates offered beside the latest of each program, newest first */
+const MORE_BASES = 24;
+
+/**
+ * The job's done estimates with the figures a quote would use; null for no such job. First the
+ * latest of each program (the builder's default), then the job's other finished estimates,
+ * newest first (an earlier program version, another machine or machine version), so the
+ * estimator picks the program version × machine version the quote is built on.
+ */
 export async function quoteBases(shopId: number, jobId: number): Promise<QuoteBasis[] | null> {
   const [job] = await db
     .select({ job: jobs, shopCurrency: shops.currency, material: materials })
@@ -142,22 +150,32 @@ export async function quoteBases(shopId: number, jobId: number): Promise<QuoteBa
   if (!job) return null;
   const programsOfJob = await listJobPrograms(shopId, jobId);
   const done = (programsOfJob ?? []).filter((p) => p.latest.estimate?.status === 'done');
-  if (done.length === 0) return [];
+  const latestIds = done.map((p) => p.latest.estimate!.id);
+  const others = await db
+    .select({ id: estimates.id })
+    .from(estimates)
+    .innerJoin(programs, and(eq(programs.id, estimates.programId), eq(programs.shopId, shopId), eq(programs.jobId, jobId)))
+    .where(and(eq(estimates.shopId, shopId), eq(estimates.status, 'done'), latestIds.length > 0 ? notInArray(estimates.id, latestIds) : undefined))
+    .orderBy(desc(estimates.id))
+    .limit(MORE_BASES);
+  const ids = [...latestIds, ...others.map((o) => o.id)];
+  if (ids.length === 0) return [];
   const settings = priceSettings(await getShopSettings(shopId));
   const rows = await db
-    .select({ estimate: estimates, machineName: machines.name, rate: machines.hourlyRateMinor })
+    .select({ estimate: estimates, machineName: machines.name, rate: machines.hourlyRateMinor, programName: programs.name })
     .from(estimates)
     .innerJoin(machines, and(eq(machines.id, estimates.machineId), eq(machines.shopId, shopId)))
-    .where(and(eq(estimates.shopId, shopId), inArray(estimates.id, done.map((p) => p.latest.estimate!.id))));
+    .innerJoin(programs, and(eq(programs.id, estimates.programId), eq(programs.shopId, shopId), eq(programs.jobId, jobId)))
+    .where(and(eq(estimates.shopId, shopId), eq(estimates.status, 'done'), inArray(estimates.id, ids)));
   const out: QuoteBasis[] = [];
-  for (const p of done) {
-    const row = rows.find((r) => r.estimate.id === p.latest.estimate!.id);
+  for (const id of ids) {
+    const row = rows.find((r) => r.estimate.id === id);
     if (!row) continue;
     const e = row.estimate;
     const parts = await partsSummary(e);
     out.push({
       estimateId: e.id,
-      programName: p.name,
+      programName: row.programName,
       programVersion: e.programVersion,
       machineVersion: e.machineVersion,
       figures: {
