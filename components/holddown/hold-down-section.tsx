@@ -4,7 +4,8 @@
 // method selector, and for the chosen method what it holds and why, its warnings, hand work,
 // machine time, consumables and cost. The choice is published to the viewer's parts panel
 // (lib/viewer/hold-overlay.ts), which colours each part held or not held for it. An estimate
-// made before the comparison existed says so and offers a new estimate to roles that may ask.
+// made before the comparison existed says so and offers a new estimate to roles that may ask;
+// the section then follows that estimate until its comparison is ready.
 import { useEffect, useState, useSyncExternalStore } from 'react';
 import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
@@ -14,6 +15,8 @@ import { canDo } from '@/lib/auth/roles';
 import { AppError } from '@/lib/errors';
 import { fetcher } from '@/lib/fetcher';
 import type { HoldOption } from '@/lib/holddown/compare';
+import { HOLD_OPTION_IDS, RULE_OUT_REASONS } from '@/lib/holddown/rule-out';
+import type { HoldOptionId } from '@/lib/holddown/types';
 import { overlayMethods } from '@/lib/holddown/overlay';
 import { formatDuration } from '@/lib/jobs/format';
 import { formatMoney } from '@/lib/quotes/price';
@@ -52,16 +55,32 @@ export function HoldDownSection({ estimate, programId, version, role }: HoldDown
 }
 
 function Comparison({ estimate, programId, version, canRequest }: { estimate: NonNullable<HoldDownSectionProps['estimate']>; programId: number; version: number; canRequest: boolean }) {
-  const { data, error, isLoading, mutate } = useSWR<HoldDownAnswer, AppError>(`/api/estimates/${estimate.id}/hold-down`, fetcher, {
+  // after "Request a new estimate" the section follows the estimate the request named (the
+  // same row computed again, or a new one), polling it until its comparison is ready
+  const [followed, setFollowed] = useState<number | null>(null);
+  const shownId = followed ?? estimate.id;
+  // methods the job cannot use, compared without them (lib/holddown/rule-out.ts)
+  const [ruledOut, setRuledOut] = useState<HoldOptionId[]>([]);
+  const query = ruledOut.length > 0 ? `?ruleOut=${ruledOut.join(',')}` : '';
+  const { data, error, isLoading, mutate } = useSWR<HoldDownAnswer, AppError>(`/api/estimates/${shownId}/hold-down${query}`, fetcher, {
     refreshInterval: (latest) => (latest && latest.availability === 'not-done' && latest.estimateStatus !== 'failed' ? 3000 : 0),
+    keepPreviousData: true,
   });
+  const toggleRuledOut = (id: HoldOptionId, on: boolean) => setRuledOut((now) => HOLD_OPTION_IDS.filter((m) => (m === id ? on : now.includes(m))));
   const overlay = useSyncExternalStore(holdOverlay.subscribe, holdOverlay.getSnapshot, holdOverlay.getSnapshot);
-  const [requesting, setRequesting] = useState<{ state: 'idle' | 'busy' | 'done' } | { state: 'failed'; message: string }>({ state: 'idle' });
+  const [requesting, setRequesting] = useState<{ state: 'idle' | 'busy' } | { state: 'failed'; message: string }>({ state: 'idle' });
 
   useEffect(() => {
-    if (data?.availability === 'ready') holdOverlay.publish(estimate.id, overlayMethods(data), data.recommended);
+    if (data?.availability === 'ready') holdOverlay.publish(shownId, overlayMethods(data), data.recommended);
     return () => holdOverlay.clear();
-  }, [data, estimate.id]);
+  }, [data, shownId]);
+
+  const followNote =
+    followed !== null && followed !== estimate.id ? (
+      <p className="text-sm text-ink-soft" data-testid="hold-down-followed">
+        Shown for the estimate just requested (no. <span className="figure">{followed}</span>); reload the page to see its figures under Stored estimate.
+      </p>
+    ) : null;
 
   if (error) {
     return (
@@ -87,25 +106,24 @@ function Comparison({ estimate, programId, version, canRequest }: { estimate: No
     const request = async () => {
       setRequesting({ state: 'busy' });
       try {
-        await fetcher(`/api/programs/${programId}/estimates`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ machineId: estimate.machineId, version }) });
-        setRequesting({ state: 'done' });
+        const answer = await fetcher<{ estimate: { id: number } }>(`/api/programs/${programId}/estimates`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ machineId: estimate.machineId, version }) });
+        setRequesting({ state: 'idle' });
+        if (answer.estimate.id === shownId) await mutate();
+        else setFollowed(answer.estimate.id);
       } catch (err) {
         setRequesting({ state: 'failed', message: err instanceof Error ? err.message : String(err) });
       }
     };
     return (
       <div className="mt-2 flex flex-col gap-2" data-testid="hold-down-unavailable">
+        {followNote}
         <Notice tone={data.availability === 'not-done' && data.estimateStatus !== 'failed' ? 'note' : 'caution'} title={data.availability === 'not-done' ? 'Not compared yet.' : 'This estimate has no comparison.'} role="status">
           <p>{data.note.replace(data.caution, '').trim()}</p>
           {data.availability === 'not-computed' && canRequest ? (
             <div className="mt-2">
-              {requesting.state === 'done' ? (
-                <p className="font-bold">A new estimate is requested: reload the page once it is done.</p>
-              ) : (
-                <Button variant="secondary" onClick={request} disabled={requesting.state === 'busy'}>
-                  {requesting.state === 'busy' ? 'Requesting…' : 'Request a new estimate'}
-                </Button>
-              )}
+              <Button variant="secondary" onClick={request} disabled={requesting.state === 'busy'}>
+                {requesting.state === 'busy' ? 'Requesting…' : 'Request a new estimate'}
+              </Button>
               {requesting.state === 'failed' ? <p className="mt-1 font-bold text-fault" role="alert">{requesting.message}</p> : null}
             </div>
           ) : null}
@@ -119,6 +137,7 @@ function Comparison({ estimate, programId, version, canRequest }: { estimate: No
   const recommended = data.options.find((o) => o.method === data.recommended) ?? null;
   return (
     <div className="mt-2 flex flex-col gap-4">
+      {followNote}
       <Notice tone={recommended ? 'ok' : 'caution'} title={recommended ? `Suggested: ${recommended.label}` : 'No method holds every part.'} role="status">
         <p data-testid="hold-down-note">{data.note.replace(data.caution, '').trim()}</p>
         {data.wouldChange.length > 0 ? (
@@ -137,6 +156,20 @@ function Comparison({ estimate, programId, version, canRequest }: { estimate: No
         <legend className="mb-1 font-bold">Method shown (here and in the parts of the view)</legend>
         {data.options.map((o) => (
           <MethodChoice key={o.method} option={o} data={data} checked={o.method === chosen?.method} money={money} />
+        ))}
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-1" data-testid="hold-down-rule-out">
+        <legend className="mb-1 font-bold">Methods this job cannot use</legend>
+        <p className="text-sm text-ink-soft">Compared without them: the suggestion is made among the rest.</p>
+        {data.options.map((o) => (
+          <label key={o.method} className="flex min-h-target cursor-pointer items-center gap-3 text-sm">
+            <input type="checkbox" className="h-5 w-5 shrink-0" checked={ruledOut.includes(o.method)} onChange={(e) => toggleRuledOut(o.method, e.target.checked)} />
+            <span className="flex flex-col">
+              <span className="font-bold">{o.label}</span>
+              <span className="text-ink-soft">{RULE_OUT_REASONS[o.method]}</span>
+            </span>
+          </label>
         ))}
       </fieldset>
 
