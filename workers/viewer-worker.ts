@@ -2,12 +2,12 @@
 // (which runs lib/estimate's runEstimate). The file arrives as a Blob (cloned by reference, not
 // copied); every per-move array of the answer goes back transferred, never copied.
 import * as Comlink from 'comlink';
-import { openProgram, resultTransferables, type ViewerInput, type ViewerProgress, type ViewerResult } from '@/lib/viewer/view-run';
+import { forTransfer, openProgram, resultTransferables, type ViewerInput, type ViewerProgress, type ViewerResult } from '@/lib/viewer/view-run';
 
 const api = {
   async open(file: Blob, input: ViewerInput, onProgress: (p: ViewerProgress) => void): Promise<ViewerResult> {
     const bytes = new Uint8Array(await file.arrayBuffer());
-    const result = await openProgram(bytes, input, (p) => void onProgress(p));
+    const result = forTransfer(await openProgram(bytes, input, (p) => void onProgress(p)));
     return Comlink.transfer(result, resultTransferables(result));
   },
 };

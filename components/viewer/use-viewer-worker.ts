@@ -6,7 +6,7 @@
 import * as Comlink from 'comlink';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { ViewerWorkerApi } from '@/workers/viewer-worker';
-import type { ViewerInput, ViewerProgress, ViewerResult } from '@/lib/viewer/view-run';
+import { fromTransfer, type ViewerInput, type ViewerProgress, type ViewerResult } from '@/lib/viewer/view-run';
 
 export type WorkerState =
   | { status: 'idle' }
@@ -53,7 +53,7 @@ export function useViewerWorker() {
           // the benchmark splits the main thread's long tasks at this mark
           performance.mark('kerfcast-viewer-result');
           stop();
-          setState({ status: 'done', result: result as ViewerResult, openedMs: performance.now() - started });
+          setState({ status: 'done', result: fromTransfer(result as ViewerResult), openedMs: performance.now() - started });
         })
         .catch((err: unknown) => fail(err instanceof Error ? err.message : String(err)));
     },

@@ -25,8 +25,10 @@ const MAX_FINDING_MARKERS = 2000;
 
 export function sceneData(result: ViewerResult, sheet: { widthMm: number; lengthMm: number; thicknessMm: number } | null): SceneData {
   const { moves, report, stockTopZ } = result;
-  const checks = (report.checks ?? {}) as { plungePoints?: { x: number; y: number; depthMm: number }[] };
-  const plunges = (checks.plungePoints ?? []).map((p) => ({ x: p.x, y: p.y, z: stockTopZ - p.depthMm }));
+  // read from the columns: the report's own list of objects is only built when something asks
+  const pc = result.plunges;
+  const plunges: MarkerPoint[] = new Array(pc.count);
+  for (let i = 0; i < pc.count; i++) plunges[i] = { x: pc.x[i], y: pc.y[i], z: stockTopZ - pc.depthMm[i] };
   const toolChanges: MarkerPoint[] = [];
   for (let i = 0; i < moves.count; i++) {
     if (moves.kind[i] === MoveKind.toolChange) toolChanges.push({ x: moves.x[i], y: moves.y[i], z: moves.z[i] });

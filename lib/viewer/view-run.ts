@@ -2,7 +2,12 @@
 // file so it is tested in Node. Bytes → the same checks as an upload (lib/gcode program-text)
 // → SHA-256 → runEstimate (interpret, plan, through-cut checks: the server's and the CLI's
 // code) → the path buffers → the result, whose every per-move array goes back transferred.
+// The report's plunge points (about 150,000 objects on a big nest) cross as columns too: the
+// page would otherwise spend a long task rebuilding every object on arrival. The report still
+// reads as before (checks.plungePoints builds the objects when first read, in the same place
+// of the JSON), so the program page's comparison with the stored report is unchanged.
 import { loadAnalysis } from '@/lib/analysis';
+import type { PlungePoint } from '@/lib/analysis/types';
 import { runEstimate, type EstimateJob } from '@/lib/estimate/run-estimate';
 import { checkProgramBytes } from '@/lib/gcode/program-text';
 import type { ArcTable, MoveList } from '@/lib/gcode/move-list';
@@ -33,11 +38,77 @@ export interface ViewerResult {
   /** byte offsets of the source lines (line-index.ts) */
   lineStarts: Uint32Array;
   stockTopZ: number;
+  /** the report's checks.plungePoints, in columns */
+  plunges: PlungeColumns;
   sha256: string;
   timingsMs: { read: number; engine: number; path: number };
 }
 
 export class ViewerInputError extends Error {}
+
+/** plunge points in columns, index i of each column being point i */
+export interface PlungeColumns {
+  count: number;
+  line: Int32Array;
+  tool: Int32Array;
+  /** bit 0 ramp, bit 1 rapid */
+  flags: Uint8Array;
+  x: Float64Array;
+  y: Float64Array;
+  depthMm: Float64Array;
+  feedMmPerMin: Float64Array;
+}
+
+export function packPlungePoints(points: readonly PlungePoint[]): PlungeColumns {
+  const n = points.length;
+  const c: PlungeColumns = {
+    count: n,
+    line: new Int32Array(n),
+    tool: new Int32Array(n),
+    flags: new Uint8Array(n),
+    x: new Float64Array(n),
+    y: new Float64Array(n),
+    depthMm: new Float64Array(n),
+    feedMmPerMin: new Float64Array(n),
+  };
+  for (let i = 0; i < n; i++) {
+    const p = points[i];
+    c.line[i] = p.line;
+    c.tool[i] = p.tool;
+    c.flags[i] = (p.ramp ? 1 : 0) | (p.rapid ? 2 : 0);
+    c.x[i] = p.x;
+    c.y[i] = p.y;
+    c.depthMm[i] = p.depthMm;
+    c.feedMmPerMin[i] = p.feedMmPerMin;
+  }
+  return c;
+}
+
+/** the objects back, their keys in the analysis's order (lib/analysis PlungePoints.at) */
+export function unpackPlungePoints(c: PlungeColumns): PlungePoint[] {
+  const out: PlungePoint[] = new Array(c.count);
+  for (let i = 0; i < c.count; i++) {
+    const f = c.flags[i];
+    out[i] = { line: c.line[i], x: c.x[i], y: c.y[i], depthMm: c.depthMm[i], feedMmPerMin: c.feedMmPerMin[i], tool: c.tool[i], ramp: (f & 1) !== 0, rapid: (f & 2) !== 0 };
+  }
+  return out;
+}
+
+/** report.checks.plungePoints as a getter over the columns, built on first read, in its place */
+function attachPlungePoints(report: EstimateReport, columns: PlungeColumns): void {
+  const checks = report.checks as Record<string, unknown> | undefined;
+  if (!checks || !('plungePoints' in checks)) return;
+  let list: PlungePoint[] | null = null;
+  // redefining the existing key keeps its place in the key order, so JSON.stringify is unchanged
+  Object.defineProperty(checks, 'plungePoints', {
+    enumerable: true,
+    configurable: true,
+    get: () => (list ??= unpackPlungePoints(columns)),
+    set: (v: PlungePoint[]) => {
+      list = v;
+    },
+  });
+}
 
 function hex(buffer: ArrayBuffer): string {
   return Array.from(new Uint8Array(buffer), (b) => b.toString(16).padStart(2, '0')).join('');
@@ -86,10 +157,14 @@ export async function openProgram(bytes: Uint8Array, input: ViewerInput, onProgr
     chordToleranceMm: input.profile.chordToleranceMm,
     findingLines,
   });
+  const checks = run.report.checks as { plungePoints?: PlungePoint[] } | undefined;
+  const plunges = checks?.plungePoints ? packPlungePoints(checks.plungePoints) : packPlungePoints([]);
+  attachPlungePoints(run.report, plunges);
   const t3 = performance.now();
   onProgress({ percent: 100, stage: 'Drawing' });
   return {
     report: run.report,
+    plunges,
     moves: run.interpretation.moves,
     cumulativeS: run.estimate.cumulativeS,
     path,
@@ -104,6 +179,29 @@ function arcBuffers(a: ArcTable): ArrayBuffer[] {
   return [a.move, a.cx, a.cy, a.cz, a.radius, a.sweep, a.plane].map((x) => x.buffer as ArrayBuffer);
 }
 
+/**
+ * The result as the worker posts it: the same, but the report's plunge points left as null
+ * (a structured clone would read the getter and send every object); fromTransfer puts the
+ * getter back on the page's side.
+ */
+export function forTransfer(r: ViewerResult): ViewerResult {
+  const checks = r.report.checks as Record<string, unknown> | undefined;
+  if (!checks || !('plungePoints' in checks)) return r;
+  const sent: Record<string, unknown> = {};
+  for (const key of Object.keys(checks)) sent[key] = key === 'plungePoints' ? null : checks[key];
+  return { ...r, report: { ...r.report, checks: sent as EstimateReport['checks'] } };
+}
+
+/** the page's side of forTransfer */
+export function fromTransfer(r: ViewerResult): ViewerResult {
+  attachPlungePoints(r.report, r.plunges);
+  return r;
+}
+
+function plungeBuffers(c: PlungeColumns): ArrayBuffer[] {
+  return [c.line, c.tool, c.flags, c.x, c.y, c.depthMm, c.feedMmPerMin].map((x) => x.buffer as ArrayBuffer);
+}
+
 /** every typed array of the result once, for the transfer list (shared buffers listed once) */
 export function resultTransferables(r: ViewerResult): ArrayBuffer[] {
   const m = r.moves;
@@ -113,6 +211,7 @@ export function resultTransferables(r: ViewerResult): ArrayBuffer[] {
     r.cumulativeS.buffer as ArrayBuffer,
     r.lineStarts.buffer as ArrayBuffer,
     ...pathTransferables(r.path),
+    ...plungeBuffers(r.plunges),
   ];
   return [...new Set(all)];
 }

@@ -7,7 +7,10 @@
 //     parses (target: none);
 // (3) memory of the tab and its worker: both run in one renderer process, so its resident set
 //     (VmRSS, every ArrayBuffer included) above its figure before the file was chosen, per move
-//     (target ≤ 250 bytes per move), at the peak and once drawn;
+//     (target ≤ 250 bytes per move), at the peak and once drawn; and, to tell memory the page
+//     keeps from memory it has let go but not yet collected, once more after a full garbage
+//     collection (CDP HeapProfiler.collectGarbage); the GPU process's figure beside it
+//     (SwiftShader keeps its copy of the buffers there);
 // (4) frame time while playing (software WebGL: informative, not a target): the time between
 //     the playback loop's own animation frames (PlaybackStore.frameTimesMs), over at least 10
 //     frames or 20 s, whichever comes later, capped at 90 s. A frame of the whole path in
@@ -30,12 +33,12 @@ const LINES = Number(process.env.BENCH_VIEWER_LINES ?? 1_000_000);
 const PORT = Number(process.env.BENCH_VIEWER_PORT ?? 3119);
 const GL_ARGS = ['--headless', '--no-sandbox', '--use-angle=swiftshader', '--enable-unsafe-swiftshader', '--ignore-gpu-blocklist', '--disable-background-networking', '--no-first-run'];
 
-function rendererRss(): number {
+function rendererRss(type = 'renderer'): number {
   let best = 0;
   for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
     try {
       const cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
-      if (!cmd.includes('chromium') || !cmd.includes('--type=renderer')) continue;
+      if (!cmd.includes('chromium') || !cmd.includes(`--type=${type}`)) continue;
       const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
       if (m) best = Math.max(best, Number(m[1]) * 1024);
     } catch {
@@ -98,8 +101,9 @@ export default async function viewerBench(): Promise<void> {
     await page.waitForTimeout(1000);
     await page.evaluate(() => ((window as unknown as { __longTasks: unknown[] }).__longTasks = []));
     const profiling = process.env.BENCH_VIEWER_PROFILE === '1';
-    const cdp = profiling ? await context.newCDPSession(page) : null;
-    if (cdp) {
+    const cdp = await context.newCDPSession(page);
+    const gpuBefore = rendererRss('gpu-process');
+    if (profiling) {
       await cdp.send('Profiler.enable');
       await cdp.send('Profiler.setSamplingInterval', { interval: 500 });
       await cdp.send('Profiler.start');
@@ -118,8 +122,15 @@ export default async function viewerBench(): Promise<void> {
     }));
     const parsing = tasks.filter((t) => t.start < resultAt).map((t) => t.ms);
     const drawing = tasks.filter((t) => t.start >= resultAt).map((t) => t.ms);
+    // the first frame as the software rasteriser finishes it: a read of one pixel waits for it
+    const rasterMs = await page.evaluate(() => {
+      const t = performance.now();
+      const gl = document.querySelector<HTMLCanvasElement>('[data-testid="viewer-stage"] canvas')?.getContext('webgl2');
+      gl?.readPixels(0, 0, 1, 1, gl.RGBA, gl.UNSIGNED_BYTE, new Uint8Array(4));
+      return performance.now() - t;
+    });
     let profileTop: string[] = [];
-    if (cdp) {
+    if (profiling) {
       const { profile } = (await cdp.send('Profiler.stop')) as unknown as { profile: CpuProfile };
       const out = path.join(ROOT, '.data/bench');
       mkdirSync(out, { recursive: true });
@@ -129,6 +140,10 @@ export default async function viewerBench(): Promise<void> {
     await page.waitForTimeout(1500);
     clearInterval(sampler);
     const settled = rendererRss();
+    await cdp.send('HeapProfiler.collectGarbage');
+    await page.waitForTimeout(500);
+    const collected = rendererRss();
+    const gpu = rendererRss('gpu-process');
 
     // frame times while playing at 100×
     await page.getByTestId('speed').selectOption('100');
@@ -151,10 +166,10 @@ export default async function viewerBench(): Promise<void> {
     const median = frames[Math.floor(frames.length / 2)] ?? NaN;
     const p95 = frames[Math.floor(frames.length * 0.95)] ?? NaN;
     console.log(`program: ${LINES.toLocaleString('en')} lines, ${moves.toLocaleString('en')} moves`);
-    console.log(`(1) file chosen → path drawn ${(drawnMs / 1000).toFixed(2)} s; CLI estimate ${(cli.wallMs / 1000).toFixed(2)} s; ratio ${(drawnMs / cli.wallMs).toFixed(2)} (target ≤ 1.5)`);
+    console.log(`(1) file chosen → path drawn ${(drawnMs / 1000).toFixed(2)} s; CLI estimate ${(cli.wallMs / 1000).toFixed(2)} s; ratio ${(drawnMs / cli.wallMs).toFixed(2)} (target ≤ 1.5); the software rasteriser finished that first frame ${(rasterMs / 1000).toFixed(2)} s later`);
     const taskLine = (list: number[]) => `${list.length}${list.length ? ` (longest ${Math.max(...list).toFixed(0)} ms, sum ${list.reduce((a, b) => a + b, 0).toFixed(0)} ms)` : ''}`;
     console.log(`(2) main-thread long tasks while the worker parsed: ${taskLine(parsing)} (target: none over 50 ms); after its answer, while drawing: ${taskLine(drawing)}`);
-    console.log(`(3) renderer (tab + worker) above its ${mb(baseline)} before: peak +${mb(peak - baseline)} = ${((peak - baseline) / moves).toFixed(0)} B/move, drawn +${mb(settled - baseline)} = ${((settled - baseline) / moves).toFixed(0)} B/move (target ≤ 250 B/move); CLI process peak ${mb(cli.peakRssBytes)}`);
+    console.log(`(3) renderer (tab + worker) above its ${mb(baseline)} before: peak +${mb(peak - baseline)} = ${((peak - baseline) / moves).toFixed(0)} B/move, drawn +${mb(settled - baseline)} = ${((settled - baseline) / moves).toFixed(0)} B/move (target ≤ 250 B/move), after a full collection +${mb(collected - baseline)} = ${((collected - baseline) / moves).toFixed(0)} B/move; GPU process +${mb(gpu - gpuBefore)}; CLI process peak ${mb(cli.peakRssBytes)}`);
     console.log(`(4) frame time while playing (software WebGL): median ${median.toFixed(1)} ms, p95 ${p95.toFixed(1)} ms over ${frames.length} frames`);
     if (profileTop.length) console.log(`main thread, file chosen → drawn, heaviest self time:\n${profileTop.join('\n')}`);
   } finally {

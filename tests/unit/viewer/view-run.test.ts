@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runEstimate } from '@/lib/estimate/run-estimate';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
-import { openProgram, resultTransferables } from '@/lib/viewer/view-run';
+import { forTransfer, fromTransfer, openProgram, resultTransferables } from '@/lib/viewer/view-run';
 
 const bytes = new Uint8Array(readFileSync('fixtures/programs/shelf-brackets-birch-18mm.nc'));
 const parsed = parseMachineProfile(JSON.parse(readFileSync('fixtures/machines/router-1.json', 'utf8')));
@@ -38,6 +38,18 @@ describe('openProgram (the viewer worker’s job)', () => {
     expect(r.cumulativeS.byteLength).toBe(0);
     expect(copy.path.positions.length).toBeGreaterThan(0);
     expect(copy.moves.count).toBe(copy.moves.x.length);
+  });
+  it('the plunge points cross as columns and the page reads the CLI’s report from them, byte for byte', async () => {
+    const r = await openProgram(bytes, { name: 'shelf-brackets-birch-18mm.nc', profile, job }, () => {});
+    const sent = forTransfer(r);
+    expect((sent.report.checks as { plungePoints: unknown }).plungePoints).toBeNull();
+    const arrived = fromTransfer(structuredClone(sent, { transfer: resultTransferables(sent) }));
+    expect(r.plunges.x.byteLength).toBe(0);
+    const cli = runEstimate(new TextDecoder().decode(bytes), profile, job, { name: 'shelf-brackets-birch-18mm.nc', sha256: r.sha256 });
+    const cliPlunges = (cli.report.checks as { plungePoints: unknown[] }).plungePoints;
+    expect(cliPlunges.length).toBeGreaterThan(10);
+    expect(arrived.plunges.count).toBe(cliPlunges.length);
+    expect(JSON.stringify(arrived.report)).toBe(JSON.stringify(cli.report));
   });
   it('refuses a file that is not program text, naming why', async () => {
     await expect(openProgram(Uint8Array.of(0x47, 0x30, 0x00, 0x0a), { name: 'bad.nc', profile, job }, () => {})).rejects.toThrow(/cannot be shown/);
