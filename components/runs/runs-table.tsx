@@ -3,16 +3,20 @@
 // estimated time and their ratio, and what became of the run (finished, interrupted, entered
 // afterwards, voided). Each run its user may correct has a correction form (running time in
 // minutes, sheets, interrupted, notes, and why); an admin can void a run. The server decides
-// (the run's operator on the day it ended, an admin any run) and keeps who changed what.
-import { useState } from 'react';
+// (the run's operator on the day it ended, an admin any run) and keeps who changed what; a
+// run with changes lists them (who, when, from what to what, why). Laid out as a list, not a
+// table, so it reads in the program page's narrow column; times as h:mm:ss like the timer.
+import { useRef, useState } from 'react';
+import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
 import { InputField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import type { RunView } from '@/db/queries/runs';
+import type { RunChangeView, RunDetail, RunView } from '@/db/queries/runs';
 import type { AppError, FieldErrors } from '@/lib/errors';
-import { formatDuration, formatWhen } from '@/lib/jobs/format';
+import { fetcher } from '@/lib/fetcher';
+import { formatWhen } from '@/lib/jobs/format';
 import { mayCorrect as mayCorrectRun } from '@/lib/runs/correct-rule';
-import { parseDurationText } from '@/lib/runs/run-format';
+import { clockFace, parseDurationText } from '@/lib/runs/run-format';
 import { postRun, type RunsMe } from './run-api';
 
 function outcomeWords(r: RunView): string {
@@ -21,7 +25,9 @@ function outcomeWords(r: RunView): string {
 }
 
 function CorrectForm({ run, mayVoid, onChanged }: { run: RunView; mayVoid: boolean; onChanged: () => Promise<unknown> }) {
-  const [minutes, setMinutes] = useState(run.actualSeconds !== null ? String(Math.round((run.actualSeconds / 60) * 10) / 10) : '');
+  // the time as the timer shows it (h:mm:ss): exact to the second, and sent only when edited
+  const shownTime = run.actualSeconds !== null ? clockFace(run.actualSeconds) : '';
+  const [minutes, setMinutes] = useState(shownTime);
   const [sheets, setSheets] = useState(run.sheetsCut !== null ? String(run.sheetsCut) : '');
   const [interrupted, setInterrupted] = useState(run.interrupted);
   const [notes, setNotes] = useState(run.notes ?? '');
@@ -29,6 +35,7 @@ function CorrectForm({ run, mayVoid, onChanged }: { run: RunView; mayVoid: boole
   const [fields, setFields] = useState<FieldErrors>({});
   const [problem, setProblem] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const details = useRef<HTMLDetailsElement>(null);
 
   async function send(kind: 'correct' | 'void') {
     setBusy(true);
@@ -38,16 +45,21 @@ function CorrectForm({ run, mayVoid, onChanged }: { run: RunView; mayVoid: boole
       if (kind === 'void') {
         await postRun(`/api/runs/${run.id}/void`, { reason });
       } else {
-        const seconds = parseDurationText(minutes);
         const body: Record<string, unknown> = { reason };
-        if (seconds === null) return setFields({ actualSeconds: ['Enter the running time in minutes (45) or as h:mm:ss (1:05:30).'] });
-        if (run.actualSeconds === null || Math.abs(seconds - run.actualSeconds) >= 1) body.actualSeconds = seconds;
+        if (minutes.trim() !== shownTime) {
+          const seconds = parseDurationText(minutes);
+          if (seconds === null) return setFields({ actualSeconds: ['Enter the running time in minutes (45) or as h:mm:ss (1:05:30).'] });
+          body.actualSeconds = seconds;
+        }
         const sheetsCut = /^\d+$/.test(sheets.trim()) ? Number(sheets) : sheets;
         if (sheetsCut !== run.sheetsCut) body.sheetsCut = sheetsCut;
         if (interrupted !== run.interrupted) body.interrupted = interrupted;
         if (notes !== (run.notes ?? '')) body.notes = notes;
         await postRun(`/api/runs/${run.id}`, body, 'PATCH');
       }
+      // saved: the form closes and the next correction asks for its own reason
+      setReason('');
+      if (details.current) details.current.open = false;
       await onChanged();
     } catch (e) {
       const err = e as AppError;
@@ -59,7 +71,7 @@ function CorrectForm({ run, mayVoid, onChanged }: { run: RunView; mayVoid: boole
   }
 
   return (
-    <details className="mt-1">
+    <details className="mt-1" ref={details}>
       <summary className="min-h-target cursor-pointer py-2 font-bold text-spruce">
         Correct<span className="sr-only"> the run of {formatWhen(run.startedAt)}</span>
       </summary>
@@ -94,46 +106,84 @@ function CorrectForm({ run, mayVoid, onChanged }: { run: RunView; mayVoid: boole
   );
 }
 
+function changeWords(c: RunChangeView): string {
+  const what = c.field === 'actualSeconds' ? 'running time' : c.field === 'sheetsCut' ? 'sheets cut' : c.field;
+  const show = (v: string | null) => {
+    if (v === null || v === '') return '(none)';
+    return c.field === 'actualSeconds' && /^\d+(\.\d+)?$/.test(v) ? clockFace(Number(v)) : v;
+  };
+  return `${what}: ${show(c.before)} → ${show(c.after)}`;
+}
+
+/** Who changed what on a run (its audit rows from GET /api/runs/:runId), read when opened. */
+function RunChanges({ run }: { run: RunView }) {
+  const [open, setOpen] = useState(false);
+  const { data, error, isLoading } = useSWR<{ run: RunDetail }, AppError>(open ? `/api/runs/${run.id}` : null, fetcher);
+  const n = run.changeCount;
+  return (
+    <details className="mt-1" data-testid="run-changes" onToggle={(e) => setOpen((e.target as HTMLDetailsElement).open)}>
+      <summary className="min-h-target cursor-pointer py-2 font-bold text-spruce">
+        {n === 1 ? '1 change' : `${n} changes`}: who changed what
+      </summary>
+      {error ? <Notice tone="fault" title="The changes could not be loaded." role="alert">{error.message}</Notice> : null}
+      {isLoading ? <p role="status">Reading the changes…</p> : null}
+      {data ? (
+        <ol className="flex flex-col gap-1 border-l-2 border-rule-light pl-3" aria-label="Changes, oldest first">
+          {data.run.changes.map((c, i) => (
+            <li key={i} data-testid="run-change">
+              <span className="figure">{formatWhen(c.at)}</span> · <span className="font-bold">{c.userName}</span> · {changeWords(c)}
+              {c.reason ? <span className="block text-ink-soft">“{c.reason}”</span> : null}
+            </li>
+          ))}
+        </ol>
+      ) : null}
+    </details>
+  );
+}
+
+function Figure({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div>
+      <dt className="text-xs text-ink-soft">{label}</dt>
+      <dd className="figure font-bold">{children}</dd>
+    </div>
+  );
+}
+
 export function RunsTable({ runs, total, me, onChanged }: { runs: RunView[]; total: number; me: RunsMe; onChanged: () => Promise<unknown> }) {
   if (runs.length === 0) return <p className="text-ink-soft">No finished runs of this version yet.</p>;
   const now = new Date();
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left text-sm">
-        <caption className="mb-2 text-left font-bold">
-          Earlier runs{total > runs.length + 1 ? ` (the latest ${runs.length} of ${total})` : ''}
-        </caption>
-        <thead className="bg-night text-white">
-          <tr>
-            <th scope="col" className="p-2">Run</th>
-            <th scope="col" className="p-2 text-right">Actual</th>
-            <th scope="col" className="p-2 text-right">Estimate</th>
-            <th scope="col" className="p-2 text-right">Actual ÷ estimate</th>
-          </tr>
-        </thead>
-        <tbody>
-          {runs.map((r) => {
-            const ratio = r.actualSeconds !== null && r.estimatedRunSeconds !== null ? r.actualSeconds / r.estimatedRunSeconds : null;
-            const mayCorrect = r.status === 'finished' && mayCorrectRun(me, r, now);
-            return (
-              <tr key={r.id} className="border-b border-rule-light align-top" data-testid="run-row" data-status={r.status}>
-                <td className="p-2">
-                  <span className="font-bold">{formatWhen(r.startedAt)}</span>
-                  <br />
-                  {r.machineName} · {r.operatorName} · {r.sheetsCut ?? 0} sheet{r.sheetsCut === 1 ? '' : 's'}
-                  <br />
-                  <span className={r.status === 'voided' ? 'text-ink-faint line-through' : 'text-ink-soft'}>{outcomeWords(r)}</span>
-                  {r.notes ? <span className="block text-ink-soft">“{r.notes}”</span> : null}
-                  {mayCorrect || (me.mayCorrectAny && r.status !== 'voided') ? <CorrectForm run={r} mayVoid={me.mayCorrectAny} onChanged={onChanged} /> : null}
-                </td>
-                <td className="figure p-2 text-right">{r.actualSeconds !== null ? formatDuration(r.actualSeconds) : '—'}</td>
-                <td className="figure p-2 text-right">{r.estimatedRunSeconds !== null ? formatDuration(r.estimatedRunSeconds) : '—'}</td>
-                <td className="figure p-2 text-right">{ratio !== null ? ratio.toFixed(3) : '—'}</td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
+    <section aria-labelledby="earlier-runs-title">
+      <h3 id="earlier-runs-title" className="mb-2 text-base font-bold">
+        Earlier runs{total > runs.length + 1 ? ` (the latest ${runs.length} of ${total})` : ''}
+      </h3>
+      <ol className="flex flex-col">
+        {runs.map((r) => {
+          const ratio = r.actualSeconds !== null && r.estimatedRunSeconds !== null ? r.actualSeconds / r.estimatedRunSeconds : null;
+          const mayCorrect = r.status === 'finished' && mayCorrectRun(me, r, now);
+          const leftOut = r.status === 'voided' || r.interrupted;
+          return (
+            <li key={r.id} className="border-t border-rule-light py-3" data-testid="run-row" data-status={r.status}>
+              <p>
+                <span className="font-bold">{formatWhen(r.startedAt)}</span>{' '}
+                <span className={r.status === 'voided' ? 'text-ink-faint line-through' : 'text-ink-soft'}>· {outcomeWords(r)}</span>
+              </p>
+              <p className="text-sm text-ink-soft">
+                {r.machineName} · {r.operatorName} · {r.sheetsCut ?? 0} sheet{r.sheetsCut === 1 ? '' : 's'}
+              </p>
+              <dl className={`mt-1 grid grid-cols-3 gap-2 ${leftOut ? 'text-ink-soft' : ''}`}>
+                <Figure label="Actual">{r.actualSeconds !== null ? clockFace(r.actualSeconds) : '—'}</Figure>
+                <Figure label="Estimate">{r.estimatedRunSeconds !== null ? clockFace(r.estimatedRunSeconds) : '—'}</Figure>
+                <Figure label={leftOut ? 'Ratio (left out)' : 'Actual ÷ estimate'}>{ratio !== null ? ratio.toFixed(3) : '—'}</Figure>
+              </dl>
+              {r.notes ? <p className="mt-1 text-sm text-ink-soft">“{r.notes}”</p> : null}
+              {r.changeCount > 0 ? <RunChanges run={r} /> : null}
+              {mayCorrect || (me.mayCorrectAny && r.status !== 'voided') ? <CorrectForm run={r} mayVoid={me.mayCorrectAny} onChanged={onChanged} /> : null}
+            </li>
+          );
+        })}
+      </ol>
+    </section>
   );
 }

@@ -93,6 +93,8 @@ export interface RunView {
   manual: boolean;
   voidedAt: string | null;
   voidReason: string | null;
+  /** how many audit rows (corrections, voiding) the run has: GET /api/runs/:runId lists them */
+  changeCount: number;
   events: RunEventView[];
   /** the server's clock when the view was made: the browser's timer counts on from it */
   serverNow: string;
@@ -117,6 +119,7 @@ function runSelect(h: Handle) {
       operatorName: operator.name,
       estimateSeconds: estimates.totalSeconds,
       estimateCalibratedSeconds: estimates.calibratedSeconds,
+      changeCount: sql<number>`(select count(*) from ${runChanges} where ${runChanges.runId} = ${runs.id})`,
     })
     .from(runs)
     .innerJoin(jobs, eq(jobs.id, runs.jobId))
@@ -177,6 +180,7 @@ function toView(s: Selected, events: RunEventView[], now: Date): RunView {
     manual: r.manual,
     voidedAt: iso(r.voidedAt),
     voidReason: r.voidReason,
+    changeCount: Number(s.changeCount),
     events,
     serverNow: now.toISOString(),
   };
