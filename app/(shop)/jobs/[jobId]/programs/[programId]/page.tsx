@@ -7,14 +7,17 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { EstimateTimes } from '@/components/runs/estimate-times';
 import { ProgramRunsSection } from '@/components/runs/program-runs-section';
 import { HoldDownSection } from '@/components/holddown/hold-down-section';
 import { Notice } from '@/components/ui/notice';
 import { ProgramPageViewer } from '@/components/viewer/program-page-viewer';
 import { getJob } from '@/db/queries/jobs';
+import { getMachine } from '@/db/queries/machines';
 import { getProgramPage } from '@/db/queries/program-view';
 import { guardPage } from '@/lib/auth/page-guard';
-import { formatBytes, formatDuration, formatWhen } from '@/lib/jobs/format';
+import { canDo } from '@/lib/auth/roles';
+import { formatBytes, formatWhen } from '@/lib/jobs/format';
 import { idSchema } from '@/lib/validation/ids';
 
 export const metadata: Metadata = { title: 'Program' };
@@ -54,6 +57,8 @@ export default async function ProgramPage({
   const data = await getProgramPage(user.shopId, job, programId, version);
   if (!data) notFound();
   const { program, version: shown, stored, inputs } = data;
+  // the estimate's machine as it is now: a newer profile version (a calibration applied) asks for the estimate on it
+  const estimateMachine = stored ? await getMachine(user.shopId, stored.estimate.machineId) : null;
 
   return (
     <>
@@ -122,8 +127,21 @@ export default async function ProgramPage({
                   {stored.machineName} <span className="font-normal text-ink-soft">(profile version {stored.estimate.machineVersion})</span>
                 </Figure>
                 <Figure label="Status">{stored.estimate.status}</Figure>
-                {stored.estimate.totalSeconds !== null ? <Figure label="Machine time">{formatDuration(stored.estimate.totalSeconds)}</Figure> : null}
-                {stored.estimate.calibratedSeconds !== null ? <Figure label="Calibrated time">{formatDuration(stored.estimate.calibratedSeconds)}</Figure> : null}
+                {stored.estimate.totalSeconds !== null || stored.estimate.status === 'done' ? (
+                  <EstimateTimes
+                    programId={program.id}
+                    version={shown.version}
+                    totalSeconds={stored.estimate.totalSeconds}
+                    calibratedSeconds={stored.estimate.calibratedSeconds}
+                    timeFactor={stored.profile.timeFactor}
+                    machine={
+                      estimateMachine
+                        ? { id: estimateMachine.id, name: estimateMachine.name, estimateVersion: stored.estimate.machineVersion, currentVersion: estimateMachine.version, currentTimeFactor: estimateMachine.timeFactor }
+                        : null
+                    }
+                    canRequest={canDo(user.role, 'estimates:write') && estimateMachine?.archivedAt === null}
+                  />
+                ) : null}
                 {stored.estimate.partCount !== null ? <Figure label="Parts">{stored.estimate.partCount}</Figure> : null}
                 {stored.estimate.errorCount !== null ? (
                   <Figure label="Findings">
