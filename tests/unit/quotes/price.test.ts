@@ -93,6 +93,16 @@ describe('buildPrice: rules', () => {
     expect(r.netMinor).toBe(55200);
     expect(r.totalMinor).toBe(66240);
   });
+  // the worked example's net (55 105) rounds down to 100; these steps make it round up, so a
+  // rounding that truncates instead of going half up shows in a whole quote, not only in the helper
+  it('nearest 200: 55 105 = 275.525 steps → 276 × 200 = 55 200 (rounding +95); tax 20 % = 11 040, total 66 240', () => {
+    const r = buildPrice(inputs, { ...figures, settings: { ...settings, roundToMinor: 200 } });
+    expect([r.netMinor, r.roundingMinor, r.taxMinor, r.totalMinor]).toEqual([55200, 95, 11040, 66240]);
+  });
+  it('nearest 10: 55 105 is exactly half a step, and half goes up (price.ts header, not to even) → 55 110; tax 11 022, total 66 132', () => {
+    const r = buildPrice(inputs, { ...figures, settings: { ...settings, roundToMinor: 10 } });
+    expect([r.netMinor, r.roundingMinor, r.taxMinor, r.totalMinor]).toEqual([55110, 5, 11022, 66132]);
+  });
   it('no rounding with roundToMinor 1', () => {
     const r = buildPrice(inputs, { ...figures, settings: { ...settings, roundToMinor: 1 } });
     expect(r.netMinor).toBe(55105);
