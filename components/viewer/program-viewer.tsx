@@ -60,7 +60,10 @@ export function ProgramViewer({ file, input, onResult }: ProgramViewerProps) {
   useEffect(() => {
     if (state.status === 'done') {
       onResult?.(state.result);
-      (window as unknown as { __kerfcastViewerOpenedMs?: number }).__kerfcastViewerOpenedMs = state.openedMs;
+      const w = window as unknown as { __kerfcastViewerOpenedMs?: number; __kerfcastViewerTimings?: ViewerResult['timingsMs'] };
+      w.__kerfcastViewerOpenedMs = state.openedMs;
+      // the benchmark prints the worker's own stages
+      w.__kerfcastViewerTimings = state.result.timingsMs;
     }
   }, [state, onResult]);
 

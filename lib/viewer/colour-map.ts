@@ -1,5 +1,6 @@
-// Colour by move kind, by tool or by achieved speed: one colour per move written to both
-// vertices of each of its segments (a Uint8 RGB buffer the GPU reads as normalised colour),
+// Colour by move kind, by tool or by achieved speed: one colour per move written to the end
+// vertex of each of its segments (a Uint8 RGB buffer the GPU reads as normalised colour, flat
+// across each segment of the strip, path-build.ts),
 // and the legend in words for the same choice. Pure, so the mapping is unit-tested.
 import { hexToRgb, PATH_COLOURS, SPEED_COLOURS, TOOL_COLOURS, type Rgb } from './palette';
 import { ViewKind, type ViewKindCode } from './path-kinds';
@@ -63,10 +64,12 @@ export function moveColour(input: ColourInput, mode: ColourMode, i: number): str
   return step < 0 ? KIND_HEX[kind] : SPEED_COLOURS[step];
 }
 
-/** writes every segment's two vertex colours (RGB, 0–255) into out (6 bytes per segment) */
+/** writes the colour (RGB, 0–255) of the segment ending at each vertex of the strip into out
+ *  (3 bytes per vertex; the first vertex takes the first segment's) */
 export function colourPath(input: ColourInput, mode: ColourMode, out: Uint8Array): Uint8Array {
   const n = input.viewKind.length;
   const cache = new Map<string, Rgb>();
+  let first = true;
   for (let i = 0; i < n; i++) {
     const from = input.moveSegStart[i];
     const to = input.moveSegStart[i + 1];
@@ -77,11 +80,17 @@ export function colourPath(input: ColourInput, mode: ColourMode, out: Uint8Array
       rgb = hexToRgb(hex);
       cache.set(hex, rgb);
     }
+    if (first) {
+      out[0] = rgb[0];
+      out[1] = rgb[1];
+      out[2] = rgb[2];
+      first = false;
+    }
     for (let s = from; s < to; s++) {
-      const o = s * 6;
-      out[o] = out[o + 3] = rgb[0];
-      out[o + 1] = out[o + 4] = rgb[1];
-      out[o + 2] = out[o + 5] = rgb[2];
+      const o = (s + 1) * 3;
+      out[o] = rgb[0];
+      out[o + 1] = rgb[1];
+      out[o + 2] = rgb[2];
     }
   }
   return out;

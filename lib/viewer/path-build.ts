@@ -1,5 +1,6 @@
 // The path as the GPU draws it, built once in the worker from the move list and the planner's
-// clock: one buffer of line segments (two vertices each) for the whole program, arcs flattened
+// clock: one line strip for the whole program (the path is continuous, so each segment shares
+// its start with the end of the one before: one vertex per segment, not two), arcs flattened
 // at the machine's chord tolerance (the same sagitta rule as the planner, lib/gcode
 // arcChordCount), and per move the index of its first segment, so playback maps a move to a
 // draw range without touching the geometry. Per move also its view kind (path-kinds.ts) and its
@@ -9,11 +10,15 @@ import { arcChordCount, type MoveList } from '@/lib/gcode';
 import { feedKind, ViewKind } from './path-kinds';
 
 export interface ViewerPath {
-  /** segment vertices, x y z per vertex, two vertices per segment (float32, mm, G54) */
+  /** the strip's vertices, x y z each (float32, mm, G54): the path's start, then the end of
+   *  every segment, so segment s runs from vertex s to vertex s + 1 */
   positions: Float32Array;
-  /** per vertex: distance along a rapid move from its start (mm), −1 on every other move */
+  /** per vertex: distance along the run of rapids that reaches it (mm); 0 where a run starts
+   *  and at the end of every other segment (the shader dashes rapids only) */
   dash: Float32Array;
-  /** per vertex: [tool slot (index into tools), flags (bit 0 rapid, bit 1 a finding's line)] */
+  /** per vertex: [tool slot (index into tools), flags (bit 0 rapid, bit 1 a finding's line)] of
+   *  the segment ending there (the first vertex repeats the first segment's); the GPU takes a
+   *  segment's flat attributes from its last vertex, as WebGL 2 does */
   tag: Uint8Array;
   /** per move m: its first segment; moveSegStart[count] = the segment count */
   moveSegStart: Uint32Array;
@@ -70,9 +75,10 @@ export function buildViewerPath(
   }
   moveSegStart[n] = segs;
 
-  const positions = new Float32Array(segs * 6);
-  const dash = new Float32Array(segs * 2);
-  const tag = new Uint8Array(segs * 4);
+  const vertices = segs > 0 ? segs + 1 : 0;
+  const positions = new Float32Array(vertices * 3);
+  const dash = new Float32Array(vertices);
+  const tag = new Uint8Array(vertices * 2);
   const viewKind = new Uint8Array(n);
   const speedShare = new Float32Array(n);
   const slots = new Uint8Array(n);
@@ -161,20 +167,23 @@ export function buildViewerPath(
         }
       }
       const segLen = Math.sqrt((qx - px) * (qx - px) + (qy - py) * (qy - py) + (qz - pz) * (qz - pz));
-      const o = s * 6;
-      positions[o] = px;
-      positions[o + 1] = py;
-      positions[o + 2] = pz;
-      positions[o + 3] = qx;
-      positions[o + 4] = qy;
-      positions[o + 5] = qz;
-      dash[s * 2] = k === 0 ? length : -1;
-      dash[s * 2 + 1] = k === 0 ? length + segLen : -1;
-      const t = s * 4;
-      tag[t] = slot;
-      tag[t + 1] = flags;
-      tag[t + 2] = slot;
-      tag[t + 3] = flags;
+      if (s === 0) {
+        // the strip's first vertex: the path's start, with the first segment's tag
+        positions[0] = px;
+        positions[1] = py;
+        positions[2] = pz;
+        dash[0] = 0;
+        tag[0] = slot;
+        tag[1] = flags;
+      }
+      const v = s + 1;
+      const o = v * 3;
+      positions[o] = qx;
+      positions[o + 1] = qy;
+      positions[o + 2] = qz;
+      dash[v] = k === 0 ? dash[s] + segLen : 0;
+      tag[v * 2] = slot;
+      tag[v * 2 + 1] = flags;
       length += segLen;
       if (qz < lowZ) lowZ = qz;
       if (qx < minX) minX = qx;
@@ -212,9 +221,10 @@ export function buildViewerPath(
   return { positions, dash, tag, moveSegStart, viewKind, speedShare, toolSlot: slots, tools, bounds };
 }
 
-/** vertices in the segment buffer (two per segment); stays known once the buffers are released */
+/** vertices of the strip (one more than the segments, none without any); known once the buffers are released */
 export function vertexCountOf(path: ViewerPath): number {
-  return 2 * path.moveSegStart[path.moveSegStart.length - 1];
+  const segs = path.moveSegStart[path.moveSegStart.length - 1];
+  return segs > 0 ? segs + 1 : 0;
 }
 
 /**

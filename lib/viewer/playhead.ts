@@ -1,6 +1,6 @@
 // Playback on the planner's clock: the move running at a time (lib/kinematics moveAtTime), where
-// the tool is within it, the draw range that splits the path already cut from the path to come
-// (vertex counts into the one segment buffer, so playback never rebuilds geometry), and the
+// the tool is within it, the draw ranges that split the path already cut from the path to come
+// (vertex ranges of the one line strip, so playback never rebuilds geometry), and the
 // move a source line starts. Pure, unit-tested.
 import { arcIndexOfMove, arcPoint, type MoveList, type Xyz } from '@/lib/gcode';
 import { moveAtTime } from '@/lib/kinematics/move-at-time';
@@ -21,14 +21,24 @@ export function fractionAt(cumulativeS: Float64Array, i: number, t: number): num
 }
 
 /**
- * Vertices to draw as already cut when move i is a share f done: every segment of the moves
+ * Segments to draw as already cut when move i is a share f done: every segment of the moves
  * before it and the whole segments of move i that f covers (a partly cut chord counts once done).
  */
-export function doneVertexCount(moveSegStart: Uint32Array, i: number, f: number): number {
+export function doneSegmentCount(moveSegStart: Uint32Array, i: number, f: number): number {
   if (i < 0) return 0;
   const from = moveSegStart[i];
   const segs = moveSegStart[i + 1] - from;
-  return 2 * (from + Math.floor(segs * Math.min(1, Math.max(0, f)) + 1e-9));
+  return from + Math.floor(segs * Math.min(1, Math.max(0, f)) + 1e-9);
+}
+
+/**
+ * The two draw ranges of the strip (segment s runs from vertex s to s + 1) for `done` segments
+ * done out of `total`: the path already cut, vertices 0…done, and the path to come, vertices
+ * done…total; a range of fewer than two vertices draws nothing, so it is given as empty.
+ */
+export function stripRanges(done: number, total: number): { done: [number, number]; ahead: [number, number] } {
+  const d = Math.min(Math.max(0, done), total);
+  return { done: [0, d > 0 ? d + 1 : 0], ahead: d < total ? [d, total - d + 1] : [0, 0] };
 }
 
 /** the tool's position at share f of move i: along the chord for a straight move, on the arc for an arc */

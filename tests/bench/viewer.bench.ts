@@ -116,9 +116,11 @@ export default async function viewerBench(): Promise<void> {
     await page.locator('[data-testid="viewer"] [role="progressbar"][aria-valuenow="100"]').waitFor();
     await page.evaluate(() => new Promise<void>((r) => requestAnimationFrame(() => requestAnimationFrame(() => r()))));
     const drawnMs = performance.now() - started;
-    const { tasks, resultAt } = await page.evaluate(() => ({
+    const { tasks, resultAt, openedMs, timings } = await page.evaluate(() => ({
       tasks: (window as unknown as { __longTasks: { start: number; ms: number }[] }).__longTasks,
       resultAt: performance.getEntriesByName('kerfcast-viewer-result')[0]?.startTime ?? Infinity,
+      openedMs: (window as unknown as { __kerfcastViewerOpenedMs?: number }).__kerfcastViewerOpenedMs ?? NaN,
+      timings: (window as unknown as { __kerfcastViewerTimings?: { read: number; engine: number; path: number } }).__kerfcastViewerTimings ?? null,
     }));
     const parsing = tasks.filter((t) => t.start < resultAt).map((t) => t.ms);
     const drawing = tasks.filter((t) => t.start >= resultAt).map((t) => t.ms);
@@ -167,6 +169,7 @@ export default async function viewerBench(): Promise<void> {
     const p95 = frames[Math.floor(frames.length * 0.95)] ?? NaN;
     console.log(`program: ${LINES.toLocaleString('en')} lines, ${moves.toLocaleString('en')} moves`);
     console.log(`(1) file chosen → path drawn ${(drawnMs / 1000).toFixed(2)} s; CLI estimate ${(cli.wallMs / 1000).toFixed(2)} s; ratio ${(drawnMs / cli.wallMs).toFixed(2)} (target ≤ 1.5); the software rasteriser finished that first frame ${(rasterMs / 1000).toFixed(2)} s later`);
+    console.log(`    of which the worker's answer ${(openedMs / 1000).toFixed(2)} s (its read ${timings?.read} ms, engine ${timings?.engine} ms, path ${timings?.path} ms), the page after it ${((drawnMs - openedMs) / 1000).toFixed(2)} s`);
     const taskLine = (list: number[]) => `${list.length}${list.length ? ` (longest ${Math.max(...list).toFixed(0)} ms, sum ${list.reduce((a, b) => a + b, 0).toFixed(0)} ms)` : ''}`;
     console.log(`(2) main-thread long tasks while the worker parsed: ${taskLine(parsing)} (target: none over 50 ms); after its answer, while drawing: ${taskLine(drawing)}`);
     console.log(`(3) renderer (tab + worker) above its ${mb(baseline)} before: peak +${mb(peak - baseline)} = ${((peak - baseline) / moves).toFixed(0)} B/move, drawn +${mb(settled - baseline)} = ${((settled - baseline) / moves).toFixed(0)} B/move (target ≤ 250 B/move), after a full collection +${mb(collected - baseline)} = ${((collected - baseline) / moves).toFixed(0)} B/move; GPU process +${mb(gpu - gpuBefore)}; CLI process peak ${mb(cli.peakRssBytes)}`);

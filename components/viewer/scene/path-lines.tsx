@@ -1,6 +1,6 @@
 'use client';
-// The whole path as one set of GPU buffers (positions, colours, dash distances, tags) shared
-// by two line-segment objects: the path already cut (full colour) and the path to come
+// The whole path as one set of GPU buffers (positions, colours, dash distances, tags) of one
+// line strip, shared by two line objects: the path already cut (full colour) and the path to come
 // (dimmed), split by each geometry's draw range, which every frame's playhead moves. A change
 // of colour mode writes a new colour buffer; nothing else is ever rebuilt. Once the GPU holds
 // a buffer the page's copy is let go (three.js onUpload): the vertices of a big program are
@@ -10,7 +10,7 @@ import { useEffect, useMemo, useRef } from 'react';
 import * as THREE from 'three';
 import { colourPath, type ColourMode } from '@/lib/viewer/colour-map';
 import { releaseVertexBuffers, vertexCountOf, type ViewerPath } from '@/lib/viewer/path-build';
-import { doneVertexCount } from '@/lib/viewer/playhead';
+import { doneSegmentCount, stripRanges } from '@/lib/viewer/playhead';
 import type { PlaybackStore } from '../playback-store';
 import { createPathMaterial, createSharedUniforms, MAX_TOOL_SLOTS } from './path-material';
 
@@ -79,6 +79,13 @@ export function PathLines({ path, store, mode, filters, dashMm }: { path: Viewer
     return { done: make(), ahead: make(), colour: colourAttr, vertexCount };
   }, [path]);
   const materials = useMemo(() => ({ done: createPathMaterial(shared, 0), ahead: createPathMaterial(shared, 0.72) }), [shared]);
+  const lines = useMemo(() => {
+    const d = new THREE.Line(done, materials.done);
+    const a = new THREE.Line(ahead, materials.ahead);
+    d.frustumCulled = false;
+    a.frustumCulled = false;
+    return { done: d, ahead: a };
+  }, [done, ahead, materials]);
 
   useEffect(() => applyColours(path, mode, colour, vertexCount), [path, mode, colour, vertexCount]);
   useEffect(() => applyFilters(shared, filters, path.tools, dashMm), [filters, shared, path, dashMm]);
@@ -96,17 +103,18 @@ export function PathLines({ path, store, mode, filters, dashMm }: { path: Viewer
   const last = useRef(-1);
   useFrame(() => {
     const snap = store.snapshot;
-    const count = doneVertexCount(path.moveSegStart, snap.move, store.fraction);
+    const count = doneSegmentCount(path.moveSegStart, snap.move, store.fraction);
     if (count === last.current) return;
     last.current = count;
-    done.setDrawRange(0, count);
-    ahead.setDrawRange(count, Math.max(0, vertexCount - count));
+    const r = stripRanges(count, Math.max(0, vertexCount - 1));
+    done.setDrawRange(r.done[0], r.done[1]);
+    ahead.setDrawRange(r.ahead[0], r.ahead[1]);
   });
 
   return (
     <>
-      <lineSegments geometry={done} material={materials.done} frustumCulled={false} />
-      <lineSegments geometry={ahead} material={materials.ahead} frustumCulled={false} />
+      <primitive object={lines.done} />
+      <primitive object={lines.ahead} />
     </>
   );
 }

@@ -1,5 +1,6 @@
-// The path's shader: per-vertex colour, rapids dashed (a distance along the move per vertex,
-// every other dash length left out), filters as uniforms (rapids off, tools hidden, a Z range,
+// The path's shader, drawing the one line strip: each segment's colour, tag and visibility
+// are flat, taken from its last vertex (WebGL 2's provoking vertex, path-build.ts); rapids
+// dashed (a distance along the run of rapids per vertex, every other dash length left out), filters as uniforms (rapids off, tools hidden, a Z range,
 // only the moves on findings' lines), findings marked in their own colour, and a dimmed
 // version for the path still to come while playing. Filters change uniforms, never buffers.
 import * as THREE from 'three';
@@ -16,10 +17,11 @@ uniform float uOnlyFindings;
 uniform float uMarkFindings;
 uniform float uToolHidden[${MAX_TOOL_SLOTS}];
 uniform vec3 uFindingColour;
-varying vec3 vColour;
+flat varying vec3 vColour;
+flat varying float vRapid;
+flat varying float vHidden;
 varying float vDash;
 varying float vZ;
-varying float vHidden;
 void main() {
   float rapid = mod(tag.y, 2.0);
   float finding = mod(floor(tag.y / 2.0), 2.0);
@@ -27,6 +29,7 @@ void main() {
   float toolHidden = slot < ${MAX_TOOL_SLOTS} ? uToolHidden[slot] : 0.0;
   vHidden = max(max(rapid * (1.0 - uShowRapids), toolHidden), uOnlyFindings * (1.0 - finding));
   vColour = mix(rgb, uFindingColour, finding * uMarkFindings);
+  vRapid = rapid;
   vDash = dash;
   vZ = position.z;
   gl_Position = projectionMatrix * modelViewMatrix * vec4(position, 1.0);
@@ -38,14 +41,15 @@ uniform float uDashMm;
 uniform vec2 uZRange;
 uniform float uDim;
 uniform vec3 uDimColour;
-varying vec3 vColour;
+flat varying vec3 vColour;
+flat varying float vRapid;
+flat varying float vHidden;
 varying float vDash;
 varying float vZ;
-varying float vHidden;
 void main() {
   if (vHidden > 0.5) discard;
   if (vZ < uZRange.x || vZ > uZRange.y) discard;
-  if (vDash >= 0.0 && mod(vDash, 2.0 * uDashMm) > uDashMm) discard;
+  if (vRapid > 0.5 && mod(vDash, 2.0 * uDashMm) > uDashMm) discard;
   gl_FragColor = vec4(mix(vColour, uDimColour, uDim), 1.0);
 }
 `;

@@ -58,20 +58,16 @@ describe('segments', () => {
     const { path } = build(m, 0.01);
     expect(path.moveSegStart[1] - path.moveSegStart[0]).toBe(expected);
     expect(path.moveSegStart[2] - path.moveSegStart[1]).toBe(1);
-    for (let s = 0; s < expected; s++) {
-      for (const v of [0, 1]) {
-        const o = s * 6 + v * 3;
-        expect(Math.hypot(path.positions[o], path.positions[o + 1])).toBeCloseTo(10, 4);
-      }
+    // one strip: the arc's start, then the end of every chord
+    for (let v = 0; v <= expected; v++) {
+      expect(Math.hypot(path.positions[v * 3], path.positions[v * 3 + 1])).toBeCloseTo(10, 4);
     }
-    // the chain is contiguous: each segment starts where the one before ended
-    for (let s = 1; s < path.positions.length / 6; s++) {
-      expect(path.positions[s * 6]).toBeCloseTo(path.positions[s * 6 - 3], 5);
-      expect(path.positions[s * 6 + 1]).toBeCloseTo(path.positions[s * 6 - 2], 5);
-    }
+    expect([path.positions[0], path.positions[1]]).toEqual([10, 0]);
+    expect(path.positions.length).toBe((expected + 2) * 3);
+    expect([path.positions[(expected + 1) * 3], path.positions[(expected + 1) * 3 + 1]]).toEqual([0, 20]);
     // the sagitta of every chord stays within the tolerance
     for (let s = 0; s < expected; s++) {
-      const o = s * 6;
+      const o = s * 3;
       const mx = (path.positions[o] + path.positions[o + 3]) / 2;
       const my = (path.positions[o + 1] + path.positions[o + 4]) / 2;
       expect(10 - Math.hypot(mx, my)).toBeLessThanOrEqual(0.01 + 1e-6);
@@ -84,10 +80,10 @@ describe('segments', () => {
     expect(path.tools).toEqual([3]);
     expect(path.tag[1]).toBe(TAG_RAPID);
     expect(path.tag[5]).toBe(TAG_FINDING);
-    expect(Array.from(path.toolSlot.subarray(1))).toEqual([path.tag[0], path.tag[4]]);
+    expect(Array.from(path.toolSlot.subarray(1))).toEqual([path.tag[2], path.tag[4]]);
     expect(path.dash[0]).toBe(0);
     expect(path.dash[1]).toBeCloseTo(50, 5); // a 30-40-50 triangle
-    expect(path.dash[2]).toBe(-1);
+    expect(path.dash[2]).toBe(0); // the feed after it: not a rapid, the next run of rapids starts at 0
     expect(path.bounds).toEqual({ minX: 0, minY: 0, minZ: -1, maxX: 30, maxY: 40, maxZ: 5 });
   });
 });
@@ -108,7 +104,7 @@ describe('arc chords in every plane', () => {
       expect(n).toBeGreaterThan(10);
       for (let c = 1; c <= n; c++) {
         arcPoint(r.moves, a, c / n, p);
-        const o = (from + c - 1) * 6 + 3;
+        const o = (from + c) * 3;
         expect([path.positions[o], path.positions[o + 1], path.positions[o + 2]]).toEqual([Math.fround(p.x), Math.fround(p.y), Math.fround(p.z)]);
       }
     }

@@ -13,7 +13,7 @@ import { lineStarts, lineText } from '@/lib/viewer/line-index';
 import { hexToRgb, PATH_COLOURS, SPEED_COLOURS, TOOL_COLOURS } from '@/lib/viewer/palette';
 import { buildViewerPath } from '@/lib/viewer/path-build';
 import { ViewKind } from '@/lib/viewer/path-kinds';
-import { doneVertexCount, fractionAt, moveAtLine, moveAtTime, toolPositionAt } from '@/lib/viewer/playhead';
+import { doneSegmentCount, fractionAt, stripRanges, moveAtLine, moveAtTime, toolPositionAt } from '@/lib/viewer/playhead';
 import { formatArea, formatClock, formatCoordinate } from '@/lib/viewer/readouts';
 import { Moves, testProfile } from '../kinematics/support/moves';
 
@@ -31,13 +31,20 @@ describe('playhead on the planner’s clock', () => {
     expect(moveAtTime(e.cumulativeS, 99)).toBe(1);
     expect(fractionAt(e.cumulativeS, 1, 1.8)).toBeCloseTo(0.5, 6);
   });
-  it('the draw range counts two vertices per segment done, never a partly done chord', () => {
+  it('the draw range counts whole segments done, never a partly done chord', () => {
     const p = buildViewerPath(m, e.cumulativeS, { stockTopZ: 0, chordToleranceMm: 0.003, findingLines: new Uint32Array(0) });
-    expect(doneVertexCount(p.moveSegStart, 0, 0.5)).toBe(0);
-    expect(doneVertexCount(p.moveSegStart, 0, 1)).toBe(2);
-    expect(doneVertexCount(p.moveSegStart, 1, 0.99)).toBe(2);
-    expect(doneVertexCount(p.moveSegStart, 1, 1)).toBe(4);
-    expect(doneVertexCount(p.moveSegStart, -1, 0)).toBe(0);
+    expect(doneSegmentCount(p.moveSegStart, 0, 0.5)).toBe(0);
+    expect(doneSegmentCount(p.moveSegStart, 0, 1)).toBe(1);
+    expect(doneSegmentCount(p.moveSegStart, 1, 0.99)).toBe(1);
+    expect(doneSegmentCount(p.moveSegStart, 1, 1)).toBe(2);
+    expect(doneSegmentCount(p.moveSegStart, -1, 0)).toBe(0);
+  });
+  it('splits the strip: segment s joins vertices s and s + 1, so both ranges share the playhead’s vertex', () => {
+    // 2 of 5 segments done: vertices 0–2 drawn as cut (3), vertices 2–5 to come (4)
+    expect(stripRanges(2, 5)).toEqual({ done: [0, 3], ahead: [2, 4] });
+    // nothing done: no cut range (a single vertex draws nothing), the whole strip to come
+    expect(stripRanges(0, 5)).toEqual({ done: [0, 0], ahead: [0, 6] });
+    expect(stripRanges(5, 5)).toEqual({ done: [0, 6], ahead: [0, 0] });
   });
   it('puts the tool on the arc: half of a quarter circle of r = 10 is at (10 cos 45°, 10 sin 45°)', () => {
     const a = new Moves({ x: 10, y: 0, z: -2 }).arcXY(0, 0, Math.PI / 2, 3000).build();
@@ -69,9 +76,10 @@ describe('colour by', () => {
     expect([0, 0.19, 0.2, 0.39, 0.4, 0.79, 0.8, 1].map(speedStep)).toEqual([0, 0, 1, 1, 2, 3, 4, 4]);
     expect(speedStep(Number.NaN)).toBe(-1);
   });
-  it('writes both vertices of every segment', () => {
-    const out = colourPath(input, 'kind', new Uint8Array(18));
-    expect(Array.from(out.subarray(6, 12))).toEqual([...hexToRgb(PATH_COLOURS.cut), ...hexToRgb(PATH_COLOURS.cut)]);
+  it('writes the end vertex of every segment, and the first vertex as the first segment', () => {
+    const out = colourPath(input, 'kind', new Uint8Array(12));
+    expect(Array.from(out.subarray(0, 6))).toEqual([...hexToRgb(PATH_COLOURS.rapid), ...hexToRgb(PATH_COLOURS.rapid)]);
+    expect(Array.from(out.subarray(6, 12))).toEqual([...hexToRgb(PATH_COLOURS.cut), ...hexToRgb(PATH_COLOURS.plunge)]);
   });
   it('the legend is in words, rapids dashed in every mode, only what the program has', () => {
     const kinds = new Set([ViewKind.rapid, ViewKind.cut]);
