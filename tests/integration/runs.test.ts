@@ -253,6 +253,10 @@ describe('corrections and voiding', () => {
     expect(voided.body.run.status).toBe('voided');
     expect(voided.body.run.changes!.at(-1)).toMatchObject({ field: 'status', before: 'finished', after: 'voided', reason: 'A test run.' });
     expect((await callApi(jar.admin, 'PATCH', `/api/runs/${runId}`, { sheetsCut: 1, reason: 'After void.' })).status).toBe(409);
+    // the list the program page shows counts the audit rows (2 by the operator, 1 by the admin, the voiding)
+    const listed = await q.listRuns(shop.shopId, { programId: start().programId, page: 1, perPage: 100 });
+    expect(listed.runs.find((x) => x.id === runId)?.changeCount).toBe(4);
+    expect((await callApi<RunBody>(jar.admin, 'GET', `/api/runs/${runId}`)).body.run.changes).toHaveLength(4);
   });
 
   it('a run entered afterwards: start and duration become its two events', async () => {
