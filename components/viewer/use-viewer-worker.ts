@@ -6,7 +6,7 @@
 import * as Comlink from 'comlink';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { ViewerWorkerApi } from '@/workers/viewer-worker';
-import { fromTransfer, type ViewerInput, type ViewerProgress, type ViewerResult } from '@/lib/viewer/view-run';
+import { fromTransfer, type ReportChunk, type ViewerInput, type ViewerProgress, type ViewerResult } from '@/lib/viewer/view-run';
 
 export type WorkerState =
   | { status: 'idle' }
@@ -40,6 +40,8 @@ export function useViewerWorker() {
         setState({ status: 'failed', message });
       };
       worker.addEventListener('error', (event) => fail(event.message || 'The viewer’s worker stopped with an error.'));
+      // the report's long lists arrive in chunks ahead of the answer (view-run forTransfer)
+      const chunks: ReportChunk[] = [];
       api
         .open(
           file,
@@ -47,13 +49,16 @@ export function useViewerWorker() {
           Comlink.proxy((progress: ViewerProgress) => {
             if (workerRef.current === worker) setState({ status: 'working', progress });
           }),
+          Comlink.proxy((chunk: ReportChunk) => {
+            chunks.push(chunk);
+          }),
         )
         .then((result) => {
           if (workerRef.current !== worker) return;
           // the benchmark splits the main thread's long tasks at this mark
           performance.mark('kerfcast-viewer-result');
           stop();
-          setState({ status: 'done', result: fromTransfer(result as ViewerResult), openedMs: performance.now() - started });
+          setState({ status: 'done', result: fromTransfer(result as ViewerResult, chunks), openedMs: performance.now() - started });
         })
         .catch((err: unknown) => fail(err instanceof Error ? err.message : String(err)));
     },

@@ -179,21 +179,49 @@ function arcBuffers(a: ArcTable): ArrayBuffer[] {
   return [a.move, a.cx, a.cy, a.cz, a.radius, a.sweep, a.plane].map((x) => x.buffer as ArrayBuffer);
 }
 
-/**
- * The result as the worker posts it: the same, but the report's plunge points left as null
- * (a structured clone would read the getter and send every object); fromTransfer puts the
- * getter back on the page's side.
- */
-export function forTransfer(r: ViewerResult): ViewerResult {
-  const checks = r.report.checks as Record<string, unknown> | undefined;
-  if (!checks || !('plungePoints' in checks)) return r;
-  const sent: Record<string, unknown> = {};
-  for (const key of Object.keys(checks)) sent[key] = key === 'plungePoints' ? null : checks[key];
-  return { ...r, report: { ...r.report, checks: sent as EstimateReport['checks'] } };
+/** the report's lists that cross in chunks, each chunk its own message (its own short task on the page) */
+const CHUNKED = ['parts', 'findings'] as const;
+export const TRANSFER_CHUNK = 1000;
+
+export interface ReportChunk {
+  key: (typeof CHUNKED)[number];
+  items: unknown[];
 }
 
-/** the page's side of forTransfer */
-export function fromTransfer(r: ViewerResult): ViewerResult {
+/**
+ * The result as the worker posts it: the same, but the report's plunge points left as null
+ * (a structured clone would read the getter and send every object; fromTransfer puts the
+ * getter back on the page's side), and its parts and findings left empty, to be sent before
+ * it in chunks of TRANSFER_CHUNK: the page takes one message at a time, and one message of
+ * 9,000 parts kept it busy for over 100 ms.
+ */
+export function forTransfer(r: ViewerResult): { result: ViewerResult; chunks: ReportChunk[] } {
+  const chunks: ReportChunk[] = [];
+  const report = { ...r.report };
+  for (const key of CHUNKED) {
+    const list = report[key] as unknown[];
+    for (let i = 0; i < list.length; i += TRANSFER_CHUNK) chunks.push({ key, items: list.slice(i, i + TRANSFER_CHUNK) });
+    // the key stays where it was, so the page's report keeps the CLI's key order
+    (report as Record<string, unknown>)[key] = [];
+  }
+  const checks = r.report.checks as Record<string, unknown> | undefined;
+  if (checks && 'plungePoints' in checks) {
+    const sent: Record<string, unknown> = {};
+    for (const key of Object.keys(checks)) sent[key] = key === 'plungePoints' ? null : checks[key];
+    report.checks = sent as EstimateReport['checks'];
+  }
+  return { result: { ...r, report }, chunks };
+}
+
+/** the page's side of forTransfer: the chunks, in the order they came, back in their lists */
+export function fromTransfer(r: ViewerResult, chunks: readonly ReportChunk[]): ViewerResult {
+  const lists: Record<string, unknown[]> = {};
+  for (const c of chunks) {
+    const list = (lists[c.key] ??= []);
+    for (const item of c.items) list.push(item);
+  }
+  const report = r.report as unknown as Record<string, unknown>;
+  for (const key of CHUNKED) if (lists[key]) report[key] = lists[key];
   attachPlungePoints(r.report, r.plunges);
   return r;
 }

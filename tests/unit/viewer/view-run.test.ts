@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runEstimate } from '@/lib/estimate/run-estimate';
 import { parseMachineProfile } from '@/lib/validation/machine-profile';
-import { forTransfer, fromTransfer, openProgram, resultTransferables } from '@/lib/viewer/view-run';
+import { forTransfer, fromTransfer, openProgram, resultTransferables, TRANSFER_CHUNK } from '@/lib/viewer/view-run';
 
 const bytes = new Uint8Array(readFileSync('fixtures/programs/shelf-brackets-birch-18mm.nc'));
 const parsed = parseMachineProfile(JSON.parse(readFileSync('fixtures/machines/router-1.json', 'utf8')));
@@ -39,11 +39,15 @@ describe('openProgram (the viewer worker’s job)', () => {
     expect(copy.path.positions.length).toBeGreaterThan(0);
     expect(copy.moves.count).toBe(copy.moves.x.length);
   });
-  it('the plunge points cross as columns and the page reads the CLI’s report from them, byte for byte', async () => {
+  it('the plunge points cross as columns, parts and findings in chunks, and the page reads the CLI’s report from them, byte for byte', async () => {
     const r = await openProgram(bytes, { name: 'shelf-brackets-birch-18mm.nc', profile, job }, () => {});
-    const sent = forTransfer(r);
+    const { result: sent, chunks } = forTransfer(r);
     expect((sent.report.checks as { plungePoints: unknown }).plungePoints).toBeNull();
-    const arrived = fromTransfer(structuredClone(sent, { transfer: resultTransferables(sent) }));
+    // the parts and findings go ahead in chunks of TRANSFER_CHUNK, each its own message
+    expect(sent.report.parts).toEqual([]);
+    expect(chunks.filter((c) => c.key === 'parts').reduce((n, c) => n + c.items.length, 0)).toBe(r.report.parts.length);
+    for (const c of chunks) expect(c.items.length).toBeLessThanOrEqual(TRANSFER_CHUNK);
+    const arrived = fromTransfer(structuredClone(sent, { transfer: resultTransferables(sent) }), chunks.map((c) => structuredClone(c)));
     expect(r.plunges.x.byteLength).toBe(0);
     const cli = runEstimate(new TextDecoder().decode(bytes), profile, job, { name: 'shelf-brackets-birch-18mm.nc', sha256: r.sha256 });
     const cliPlunges = (cli.report.checks as { plungePoints: unknown[] }).plungePoints;
