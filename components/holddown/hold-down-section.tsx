@@ -139,7 +139,8 @@ function Comparison({ estimate, programId, version, canRequest }: { estimate: No
     <div className="mt-2 flex flex-col gap-4">
       {followNote}
       <Notice tone={recommended ? 'ok' : 'caution'} title={recommended ? `Suggested: ${recommended.label}` : 'No method holds every part.'} role="status">
-        <p data-testid="hold-down-note">{data.note.replace(data.caution, '').trim()}</p>
+        {/* the title already says there is no method; the note goes on with each method's parts */}
+        <p data-testid="hold-down-note">{data.note.replace(data.caution, '').replace(/^No method holds every part\. /, '').trim()}</p>
         {data.wouldChange.length > 0 ? (
           <>
             <p className="mt-2 font-bold">What would change the verdict</p>

@@ -120,7 +120,7 @@ describe('the hold-down comparison of the demo price-tag holders', () => {
     await ruleOut.getByRole('checkbox', { name: /^Tape and glue/ }).check();
     await section.getByText('No method holds every part.', { exact: true }).waitFor();
     const note = await section.getByTestId('hold-down-note').innerText();
-    expect(note).toMatch(/^No method holds every part\. Vacuum at 61\.0 kPa \(the machine’s level\): 64 of 64 not held \(parts 1–64\); Tape and glue: ruled out for this job;/);
+    expect(note).toMatch(/^Vacuum at 61\.0 kPa \(the machine’s level\): 64 of 64 not held \(parts 1–64\); Tape and glue: ruled out for this job;/);
     // F ÷ (μ·ΔP) = 45 N ÷ (0.45 × 61 kPa) = 1639 mm² against the holders' 665 mm² (PRODUCT.md's vacuum rule, common-practice defaults)
     await expect(section.innerText()).resolves.toMatch(/What would change the verdict[\s\S]*Larger parts: at 61\.0 kPa a part needs at least 1639 mm²[\s\S]*Tabs or an onion skin left in the CAM program[\s\S]*tape and glue, ruled out here/);
     await expect(section.locator('[data-method="tape-glue"]').innerText()).resolves.toMatch(/64 of 64[\s\S]*Ruled out/);
