@@ -165,7 +165,9 @@ export async function quoteBases(shopId: number, jobId: number): Promise<QuoteBa
     .select({ estimate: estimates, machineName: machines.name, rate: machines.hourlyRateMinor, programName: programs.name })
     .from(estimates)
     .innerJoin(machines, and(eq(machines.id, estimates.machineId), eq(machines.shopId, shopId)))
-    .innerJoin(programs, and(eq(programs.id, estimates.programId), eq(programs.shopId, shopId), eq(programs.jobId, jobId)))
+    // no job condition here: a program's latest estimate may be a row first made for the same
+    // bytes and settings in another job (the input key does not name the job)
+    .innerJoin(programs, and(eq(programs.id, estimates.programId), eq(programs.shopId, shopId)))
     .where(and(eq(estimates.shopId, shopId), eq(estimates.status, 'done'), inArray(estimates.id, ids)));
   const out: QuoteBasis[] = [];
   for (const id of ids) {
@@ -175,7 +177,7 @@ export async function quoteBases(shopId: number, jobId: number): Promise<QuoteBa
     const parts = await partsSummary(e);
     out.push({
       estimateId: e.id,
-      programName: row.programName,
+      programName: done.find((p) => p.latest.estimate!.id === id)?.name ?? row.programName,
       programVersion: e.programVersion,
       machineVersion: e.machineVersion,
       figures: {

@@ -4,10 +4,13 @@
 // estimator) opens the job, builds a quote in the builder (the build-up moves at once when the
 // quantity changes, and its total is the one the server stores), saves and sends it; the
 // message in the SMTP capture carries the customer's link; the customer, signed out, opens it
-// and accepts once; the job shows the quote and itself accepted. Screenshots go to
+// and accepts once; the job shows the quote and itself accepted. `npm run mail:list` (the
+// Done-when's check) lists the message with its PDF. Screenshots go to
 // .data/screenshots (quote-builder.png, quote-sent.png, quote-customer.png, quote-customer-done.png,
 // quote-job-accepted.png).
+import { execFile } from 'node:child_process';
 import { mkdirSync, readFileSync } from 'node:fs';
+import { promisify } from 'node:util';
 import path from 'node:path';
 import { and, eq, inArray } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
@@ -21,6 +24,7 @@ import { launchBrowser, type BrowserSession } from './support/browser';
 type DbModule = typeof import('@/db/client');
 type Schema = typeof import('@/db/schema');
 
+const run = promisify(execFile);
 const ROOT = path.resolve(__dirname, '../..');
 const SCREENSHOT_DIR = path.join(ROOT, '.data/screenshots');
 const FIXTURE = path.join(ROOT, 'fixtures/programs/shelf-brackets-birch-18mm.nc');
@@ -184,6 +188,19 @@ describe('an estimator quotes a job and the customer accepts', () => {
     expect((await job.status()).trim()).toBe('Quoted');
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'quote-sent.png'), fullPage: true });
     await page.close();
+  });
+
+  it('`npm run mail:list` shows the message to the customer with its PDF attached', async () => {
+    // the script the Done-when names, run as npm runs it (scripts/mail-read.ts over the capture's reader)
+    await customerLink(`Quote ${quoteNumber} from Alder & Finch Shopfitting: ${TITLE}`);
+    const { stdout } = await run('npm', ['run', '-s', 'mail:list'], { cwd: ROOT, env: { ...process.env, MAIL_CAPTURE_URL } });
+    const subject = `  subject: Quote ${quoteNumber} from Alder & Finch Shopfitting: ${TITLE}`;
+    const lines = stdout.split('\n');
+    const at = lines.indexOf(subject);
+    expect(at, stdout.slice(-2000)).toBeGreaterThan(0);
+    expect(lines[at - 1]).toMatch(/ to orders@marlow-street-bakery\.example$/);
+    expect(lines[at + 1]).toMatch(new RegExp(`^  attachments: ${quoteNumber}\\.pdf \\(\\d+ B\\)$`));
+    expect(lines.slice(at + 2, at + 8).join('\n')).toContain(`${totalText} in total`);
   });
 
   it('the customer opens the link from the e-mail, signed out, and accepts once', async () => {
