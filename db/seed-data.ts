@@ -86,7 +86,7 @@ export const demoJobs: {
     customer: 'Marlow Street Bakery',
     material: 'Birch plywood 18 mm',
     machine: 'Router 1',
-    zZero: 'table',
+    zZero: 'top', // the shelf-bracket program is written with Z zero on top of the sheet (its depths are negative, down to the through-cut)
     holdDown: 'vacuum',
     // about 18 inHg, mid-range for a router-shop vacuum table (common practice)
     vacuumKpa: 61,
