@@ -30,16 +30,42 @@ function percentLine(state: number, text: string, pos: number): number {
   return state === OPENED ? CLOSED : state;
 }
 
-/** what the % lines of the file call for once the loop is done */
-function reportDemarcation(ip: Interp, state: number, openLine: number, openText: string, closeLine: number, text: string, after: number): void {
-  if (state === OPENED) {
-    ip.diag.add('percent-unclosed', openLine, 'the program opens with a % line but no % line closes it, so the file may have been cut short (NISTIR 6556 §3.1)', openText);
-  } else if (state === CLOSED) {
-    const rest = firstNonBlankLine(text, after, closeLine + 1);
-    if (rest) ip.diag.add('lines-after-closing-percent', rest.line, `everything after the closing % on line ${closeLine} is ignored (NISTIR 6556 §3.1)`, text.slice(rest.start, rest.end));
+/** the file's §3.1 demarcation as its % lines are met, and what it calls for at the end */
+class Demarcation {
+  state = 0;
+  openLine = 0;
+  openText = '';
+  closeLine = 0;
+
+  /** the % line [pos, end) is line lineNo; true when it closes the file */
+  percent(text: string, pos: number, end: number, lineNo: number): boolean {
+    this.state = percentLine(this.state, text, pos);
+    if (this.state === OPENED && this.openLine === 0) {
+      this.openLine = lineNo;
+      this.openText = text.slice(pos, end);
+    }
+    if (this.state !== CLOSED) return false;
+    this.closeLine = lineNo;
+    return true;
+  }
+
+  /** once the loop is done, `after` where it stopped */
+  report(ip: Interp, text: string, after: number): void {
+    if (this.state === OPENED) {
+      ip.diag.add('percent-unclosed', this.openLine, 'the program opens with a % line but no % line closes it, so the file may have been cut short (NISTIR 6556 §3.1)', this.openText);
+    } else if (this.state === CLOSED) {
+      const rest = firstNonBlankLine(text, after, this.closeLine + 1);
+      if (rest) ip.diag.add('lines-after-closing-percent', rest.line, `everything after the closing % on line ${this.closeLine} is ignored (NISTIR 6556 §3.1)`, text.slice(rest.start, rest.end));
+    }
   }
 }
 
+/**
+ * The line loop: finds each line's end (LF, CRLF or CR), scans it, hands % lines to the
+ * demarcation and every other line with words to executeLine, and checks progress and the
+ * signal every `progressEvery` lines. The line-end search stays in the loop: its two cursors
+ * are locals of the per-line path.
+ */
 export function interpret(text: string, options: InterpretOptions = {}): InterpretResult {
   const total = countLines(text);
   // most lines make about one move: small programs get one small chunk, large ones 65,536-move chunks
@@ -50,6 +76,7 @@ export function interpret(text: string, options: InterpretOptions = {}): Interpr
   const signal = options.signal;
   const w = ip.w;
   const parserOnly = options.tokenizer === 'parser';
+  const demarcation = new Demarcation();
   let cancelled = false;
   let pos = 0;
   let lineNo = 0;
@@ -59,10 +86,6 @@ export function interpret(text: string, options: InterpretOptions = {}): Interpr
   // passed: an LF-only file searches for CR once, a CR-only file for LF once
   let nextLf = -1;
   let nextCr = -1;
-  let demarcation = 0;
-  let openLine = 0;
-  let openText = '';
-  let closeLine = 0;
   let limit = len;
   while (pos < limit) {
     if (nextLf < pos) {
@@ -85,16 +108,8 @@ export function interpret(text: string, options: InterpretOptions = {}): Interpr
     let issues = scanLine(text, pos, end, w);
     if (issues !== 0 || w.wordCount !== 0 || parserOnly) {
       if ((issues & PERCENT_BITS) !== 0 && isPercentLine(text, pos, end)) {
-        demarcation = percentLine(demarcation, text, pos);
-        if (demarcation === OPENED && openLine === 0) {
-          openLine = lineNo;
-          openText = text.slice(pos, end);
-        }
-        if (demarcation === CLOSED) {
-          // the file ends here; the progress check below still runs for this line
-          closeLine = lineNo;
-          limit = 0;
-        }
+        // the file ends at a closing % line; the progress check below still runs for this line
+        if (demarcation.percent(text, pos, end, lineNo)) limit = 0;
       } else {
         ip.lineStart = pos;
         ip.lineEnd = end;
@@ -116,10 +131,15 @@ export function interpret(text: string, options: InterpretOptions = {}): Interpr
     }
   }
   if (!cancelled) {
-    reportDemarcation(ip, demarcation, openLine, openText, closeLine, text, pos);
+    demarcation.report(ip, text, pos);
     if (!ip.ended && ip.moves.count > 0) ip.diag.add('program-end-missing', 0, 'the program has no M2/M30 end');
     onProgress?.(total, total);
   }
+  return result(ip, options, total, cancelled);
+}
+
+/** the finished move list, the diagnostics and the program's facts */
+function result(ip: Interp, options: InterpretOptions, total: number, cancelled: boolean): InterpretResult {
   const moves = ip.moves.finish();
   const f = computeFacts(moves);
   return {
