@@ -5,11 +5,11 @@
 //
 // | role       | pages                               | actions                                            |
 // |------------|-------------------------------------|----------------------------------------------------|
-// | admin      | dashboard, jobs, preview, runs,     | everything (shop settings, calibration and         |
-// |            | machines, materials, customers,     | correcting any run only here)                      |
-// |            | users, settings                     |                                                    |
+// | admin      | dashboard, jobs, preview, runs,     | everything (shop settings, machines, tools and     |
+// |            | machines, materials, customers,     | materials, calibration and correcting any run      |
+// |            | users, settings                     | only here)                                         |
 // | programmer | jobs, preview, runs, machines,      | jobs rw, programs rw (upload), estimates rw,       |
-// |            | materials, customers                | machines rw, materials rw, customers rw,           |
+// |            | materials, customers                | machines read, materials read, customers rw,       |
 // |            |                                     | hold-down comparison, runs read;                   |
 // |            |                                     | job status: mark programmed, cancel                |
 // | estimator  | dashboard, jobs, preview, runs,     | jobs read, programs read, estimates rw (request),  |
@@ -52,10 +52,10 @@ export const ACTIONS = {
   // estimators request estimates for another machine or after a profile change
   'estimates:write': ['admin', 'programmer', 'estimator'],
   'machines:read': ['admin', 'programmer', 'estimator', 'operator'],
-  'machines:write': ['admin', 'programmer'],
-  // sheet materials are set-up data like the machines: the same roles keep them
+  'machines:write': ['admin'],
+  // machine profiles, tools and sheet materials are the admin's set-up (PRODUCT.md, "The main job", step 1)
   'materials:read': ['admin', 'programmer', 'estimator', 'operator'],
-  'materials:write': ['admin', 'programmer'],
+  'materials:write': ['admin'],
   'customers:read': ['admin', 'programmer', 'estimator'],
   'customers:write': ['admin', 'programmer', 'estimator'],
   'users:read': ['admin'],

@@ -1,6 +1,8 @@
-// Browser test of the machine pages: a programmer edits a machine's corner tolerance from
+// Browser test of the machine pages: the admin (machine set-up is the admin's, PRODUCT.md
+// "The main job" step 1) edits a machine's corner tolerance from
 // the keyboard and sees version 2 with the change named; a bad value is named at its
-// field and focused; once the admin switches the shop to inches, the pages and forms show
+// field and focused; the programmer and the operator read the pages without a control that
+// changes them; once the admin switches the shop to inches, the pages and forms show
 // inches, an untouched save makes no version, and a tool typed as 1/4 in is stored as
 // 6.35 mm (25.4 mm per inch, NIST SP 811). Screenshots go to KERFCAST_SHOTS (if set).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -78,9 +80,9 @@ async function signedInPage(email: string) {
   return page;
 }
 
-describe('machine profile (programmer)', () => {
+describe('machine profile (admin)', () => {
   it('names a bad value at its field and focuses it, then saves 0.03 mm as version 2', async () => {
-    const page = await signedInPage('priya@alder-finch.example');
+    const page = await signedInPage('ada@alder-finch.example');
     const machine = new MachinePage(page, server.baseUrl);
     await machine.open(machineId);
     expect(await machine.versionLead()).toMatch(/^Profile version 1\b/);
@@ -117,7 +119,7 @@ describe('inch display (admin sets it)', () => {
     await shot(admin, 'machines-list-inch');
     await admin.close();
 
-    const page = await signedInPage('priya@alder-finch.example');
+    const page = await signedInPage('ada@alder-finch.example');
     const machine = new MachinePage(page, server.baseUrl);
     await machine.open(machineId);
     // 0.03 mm ÷ 25.4 = 0.001181… in; 3060 mm ÷ 25.4 = 120.4724… in
@@ -157,17 +159,17 @@ describe('inch display (admin sets it)', () => {
   });
 });
 
-describe('new machine (programmer)', () => {
+describe('new machine (admin)', () => {
   it('adds a machine from the form, every field typed, as version 1', async () => {
     const p = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/machines/router-2.json'), 'utf8'));
-    const page = await signedInPage('priya@alder-finch.example');
+    const page = await signedInPage('ada@alder-finch.example');
     await page.goto(`${server.baseUrl}/machines/new`);
     const form = new MachineEditPage(page, server.baseUrl, 'New machine');
     await form.submit('Add machine');
     expect(await form.fieldError('Name')).toBe('Name is required.');
     expect(await form.fieldError('Travel X')).toBe('Travel X is required.');
     await shot(page, 'machine-new-errors');
-    // the shop is in inches from the test above: type inches, as its programmer would
+    // the shop is in inches from the test above: type inches, as its admin would
     const axes: [string, string, number][] = [
       ['Travel', 'travelMm', 1 / 25.4], ['Fastest cutting feed', 'maxFeedMmPerMin', 1 / 25.4], ['Rapid speed', 'rapidMmPerMin', 1 / 25.4], ['Acceleration', 'accelMmPerS2', 1 / 25.4],
     ];
@@ -192,7 +194,7 @@ describe('new machine (programmer)', () => {
   });
 });
 
-describe('remove or archive (programmer)', () => {
+describe('remove or archive (admin)', () => {
   it('archives a machine a job names, keeps it readable and restorable; deletes one nothing names', async () => {
     const [machineRow] = await dbm.db.select().from(s.machines).where(eq(s.machines.name, `${NAME} new`));
     const [customer] = await dbm.db.select().from(s.customers).where(eq(s.customers.shopId, machineRow.shopId)).limit(1);
@@ -200,7 +202,7 @@ describe('remove or archive (programmer)', () => {
       shopId: machineRow.shopId, title: 'Test M job on the new router', customerId: customer.id, machineId: machineRow.id,
       sheetWidthMm: 1220, sheetLengthMm: 2440, sheetThicknessMm: 12, holdDown: 'clamps', quantity: 1,
     });
-    const page = await signedInPage('priya@alder-finch.example');
+    const page = await signedInPage('ada@alder-finch.example');
     const machine = new MachinePage(page, server.baseUrl);
     await machine.open(machineRow.id);
     await page.getByRole('button', { name: 'Remove machine' }).click();
@@ -224,17 +226,17 @@ describe('remove or archive (programmer)', () => {
   });
 });
 
-describe('operator', () => {
-  it('reads the machine and materials pages without any control that changes them', async () => {
+describe('programmer and operator', () => {
+  it.each(['priya', 'lena'])('%s reads the machine and materials pages without any control that changes them', async (who) => {
     const [router] = await dbm.db.select().from(s.machines).where(eq(s.machines.name, 'Router 1'));
-    const page = await signedInPage('lena@alder-finch.example');
+    const page = await signedInPage(`${who}@alder-finch.example`);
     const machine = new MachinePage(page, server.baseUrl);
     await machine.open(router.id);
     await page.getByTestId('profile-view').first().waitFor();
     for (const name of ['Edit profile', 'Edit']) expect(await page.getByRole('link', { name, exact: true }).count()).toBe(0);
     expect(await page.locator('main form').count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Remove machine' }).count()).toBe(0);
-    await shot(page, 'machine-page-operator');
+    await shot(page, `machine-page-${who}`);
     const forbidden = await page.goto(`${server.baseUrl}/machines/new`);
     expect(forbidden?.status()).toBe(403);
     await page.goto(`${server.baseUrl}/materials`);
@@ -246,7 +248,7 @@ describe('operator', () => {
 
 describe('materials page', () => {
   it('adds a material typed in inches and euros; the list shows it in the shop units', async () => {
-    const page = await signedInPage('priya@alder-finch.example');
+    const page = await signedInPage('ada@alder-finch.example');
     const materials = new MaterialsPage(page, server.baseUrl);
     await materials.open();
     expect(await materials.rowText('Birch plywood 18 mm')).toContain('€89.00');

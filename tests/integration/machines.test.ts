@@ -63,13 +63,13 @@ async function createOtherShop() {
     .$returningId();
 }
 
-async function create(name: string, jar = jars.priya): Promise<MachineBody['machine']> {
+async function create(name: string, jar = jars.ada): Promise<MachineBody['machine']> {
   const answer = await callApi<{ machine: MachineBody['machine'] }>(jar, 'POST', '/api/machines', { ...profile(name), hourlyRateMinor: 8000, defaultHoldDown: 'clamps' });
   expect(answer.status, JSON.stringify(answer.body)).toBe(201);
   return answer.body.machine;
 }
 
-const read = async (id: number) => (await callApi<MachineBody>(jars.priya, 'GET', `/api/machines/${id}`)).body;
+const read = async (id: number) => (await callApi<MachineBody>(jars.ada, 'GET', `/api/machines/${id}`)).body;
 
 beforeAll(async () => {
   server = await startAppServer();
@@ -111,7 +111,7 @@ describe('profile versions', () => {
 
   it('a corner tolerance change makes version 2 and a new row; the v1 snapshot is unchanged', async () => {
     const machine = await create('Corner');
-    const answer = await callApi<{ version: number; versioned: boolean }>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, { cornerToleranceMm: 0.03 });
+    const answer = await callApi<{ version: number; versioned: boolean }>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, { cornerToleranceMm: 0.03 });
     expect(answer.status).toBe(200);
     expect(answer.body).toMatchObject({ version: 2, versioned: true });
     const { machine: now, versions } = await read(machine.id);
@@ -125,12 +125,12 @@ describe('profile versions', () => {
 
   it('a save that alters nothing, or only the hourly rate and hold-down, makes no version', async () => {
     const machine = await create('Same');
-    const same = await callApi<{ version: number; versioned: boolean }>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, {
+    const same = await callApi<{ version: number; versioned: boolean }>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, {
       cornerToleranceMm: fixture.cornerToleranceMm,
       travelMm: fixture.travelMm,
     });
     expect(same.body).toMatchObject({ version: 1, versioned: false });
-    const settings = await callApi<{ version: number; versioned: boolean }>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, { hourlyRateMinor: 9900, defaultHoldDown: 'vacuum' });
+    const settings = await callApi<{ version: number; versioned: boolean }>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, { hourlyRateMinor: 9900, defaultHoldDown: 'vacuum' });
     expect(settings.body).toMatchObject({ version: 1, versioned: false });
     const { machine: now, versions } = await read(machine.id);
     expect(now.hourlyRateMinor).toBe(9900);
@@ -140,17 +140,17 @@ describe('profile versions', () => {
   it('the vacuum level a job starts from: set, cleared, refused at 0 and past one atmosphere (101.325 kPa, ISO 2533 standard atmosphere); never a new version', async () => {
     const machine = await create('Vacuum');
     const url = `/api/machines/${machine.id}`;
-    const set = await callApi<{ version: number; versioned: boolean }>(jars.priya, 'PATCH', url, { defaultVacuumKpa: 55.5 });
+    const set = await callApi<{ version: number; versioned: boolean }>(jars.ada, 'PATCH', url, { defaultVacuumKpa: 55.5 });
     expect(set.status).toBe(200);
     expect(set.body).toMatchObject({ version: 1, versioned: false });
     expect((await read(machine.id)).machine).toMatchObject({ defaultVacuumKpa: 55.5 });
     for (const bad of [0, 101.4, 'strong']) {
-      const refused = await callApi<{ error: { code: string; fields: Record<string, string[]> } }>(jars.priya, 'PATCH', url, { defaultVacuumKpa: bad });
+      const refused = await callApi<{ error: { code: string; fields: Record<string, string[]> } }>(jars.ada, 'PATCH', url, { defaultVacuumKpa: bad });
       expect(refused.status, String(bad)).toBe(422);
       expect(Object.keys(refused.body.error.fields), String(bad)).toEqual(['defaultVacuumKpa']);
     }
     expect((await read(machine.id)).machine).toMatchObject({ defaultVacuumKpa: 55.5 });
-    const cleared = await callApi(jars.priya, 'PATCH', url, { defaultVacuumKpa: null });
+    const cleared = await callApi(jars.ada, 'PATCH', url, { defaultVacuumKpa: null });
     expect(cleared.status).toBe(200);
     expect((await read(machine.id)).machine).toMatchObject({ defaultVacuumKpa: null });
     expect((await read(machine.id)).versions.map((v) => v.version)).toEqual([1]);
@@ -158,15 +158,15 @@ describe('profile versions', () => {
 
   it('tools: add, change and remove are new versions; a description alone is not; older snapshots keep the tool', async () => {
     const machine = await create('Tools');
-    const added = await callApi<{ tool: { id: number }; version: number }>(jars.priya, 'POST', `/api/machines/${machine.id}/tools`, { number: 9, diameterMm: 3.175, flutes: 1, kind: 'downcut' });
+    const added = await callApi<{ tool: { id: number }; version: number }>(jars.ada, 'POST', `/api/machines/${machine.id}/tools`, { number: 9, diameterMm: 3.175, flutes: 1, kind: 'downcut' });
     expect(added.status).toBe(201);
     expect(added.body.version).toBe(2);
     const toolId = added.body.tool.id;
-    const described = await callApi<{ version: number; versioned: boolean }>(jars.priya, 'PATCH', `/api/machines/${machine.id}/tools/${toolId}`, { description: 'acrylic letters' });
+    const described = await callApi<{ version: number; versioned: boolean }>(jars.ada, 'PATCH', `/api/machines/${machine.id}/tools/${toolId}`, { description: 'acrylic letters' });
     expect(described.body).toMatchObject({ version: 2, versioned: false });
-    const changed = await callApi<{ version: number; versioned: boolean }>(jars.priya, 'PATCH', `/api/machines/${machine.id}/tools/${toolId}`, { diameterMm: 3 });
+    const changed = await callApi<{ version: number; versioned: boolean }>(jars.ada, 'PATCH', `/api/machines/${machine.id}/tools/${toolId}`, { diameterMm: 3 });
     expect(changed.body).toMatchObject({ version: 3, versioned: true });
-    const removed = await callApi<{ version: number }>(jars.priya, 'DELETE', `/api/machines/${machine.id}/tools/${toolId}`);
+    const removed = await callApi<{ version: number }>(jars.ada, 'DELETE', `/api/machines/${machine.id}/tools/${toolId}`);
     expect(removed.body.version).toBe(4);
     const { versions } = await read(machine.id);
     const toolIn = (v: number) => versions.find((x) => x.version === v)!.profile.tools.find((t) => t.number === 9);
@@ -179,7 +179,7 @@ describe('profile versions', () => {
   it('two saves at the same moment take versions 2 and 3, each with its own snapshot', async () => {
     const machine = await create('Race');
     const [a, b] = await Promise.all([
-      callApi<{ version: number }>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, { toolChangeSeconds: 15 }),
+      callApi<{ version: number }>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, { toolChangeSeconds: 15 }),
       callApi<{ version: number }>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, { spindleSpinUpSeconds: 7 }),
     ]);
     expect([a.status, b.status]).toEqual([200, 200]);
@@ -194,7 +194,7 @@ describe('profile versions', () => {
 describe('bad input', () => {
   it('names the field in a sentence, and leaves the machine and its versions as they were', async () => {
     const machine = await create('Bad input');
-    const answer = await callApi<ErrorBody>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, { cornerToleranceMm: -1, lookaheadBlocks: 1.5 });
+    const answer = await callApi<ErrorBody>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, { cornerToleranceMm: -1, lookaheadBlocks: 1.5 });
     expect(answer.status).toBe(422);
     expect(answer.body.error.fields).toEqual({
       cornerToleranceMm: ['Corner tolerance must be 0 or more.'],
@@ -207,17 +207,17 @@ describe('bad input', () => {
 
   it('refuses a second machine of the same name (409 at the name) and a tool number twice', async () => {
     const machine = await create('Twice');
-    const again = await callApi<ErrorBody>(jars.priya, 'POST', '/api/machines', profile('Twice'));
+    const again = await callApi<ErrorBody>(jars.ada, 'POST', '/api/machines', profile('Twice'));
     expect(again.status).toBe(409);
     expect(Object.keys(again.body.error.fields ?? {})).toEqual(['name']);
-    const tool = await callApi<ErrorBody>(jars.priya, 'POST', `/api/machines/${machine.id}/tools`, { number: 1, diameterMm: 6, flutes: 2, kind: 'upcut' });
+    const tool = await callApi<ErrorBody>(jars.ada, 'POST', `/api/machines/${machine.id}/tools`, { number: 1, diameterMm: 6, flutes: 2, kind: 'upcut' });
     expect(tool.status).toBe(409);
     expect(tool.body.error.fields?.number?.[0]).toMatch(/Tool 1 is already/);
     expect((await read(machine.id)).versions).toHaveLength(1);
   });
 
   it('takes a PROFILE.json the CLI takes and refuses one it refuses, with the same field', async () => {
-    const bad = await callApi<ErrorBody>(jars.priya, 'POST', '/api/machines', { ...profile('Cli bad'), chordToleranceMm: 0 });
+    const bad = await callApi<ErrorBody>(jars.ada, 'POST', '/api/machines', { ...profile('Cli bad'), chordToleranceMm: 0 });
     expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields ?? {})).toEqual(['chordToleranceMm']);
   });
@@ -230,18 +230,18 @@ describe('archive instead of delete', () => {
       shopId: shopA, title: `${PREFIX}job on archived`, customerId: customerA, machineId: machine.id,
       sheetWidthMm: 1220, sheetLengthMm: 2440, sheetThicknessMm: 18, holdDown: 'vacuum', quantity: 1,
     });
-    const removed = await callApi<{ result: string }>(jars.priya, 'DELETE', `/api/machines/${machine.id}`);
+    const removed = await callApi<{ result: string }>(jars.ada, 'DELETE', `/api/machines/${machine.id}`);
     expect(removed.body.result).toBe('archived');
     const { machine: now, versions } = await read(machine.id);
     expect(now.archivedAt).not.toBeNull();
     expect(versions).toHaveLength(1);
-    const list = await callApi<{ machines: { id: number }[] }>(jars.priya, 'GET', '/api/machines');
+    const list = await callApi<{ machines: { id: number }[] }>(jars.ada, 'GET', '/api/machines');
     expect(list.body.machines.some((m) => m.id === machine.id)).toBe(false);
-    const all = await callApi<{ machines: { id: number }[] }>(jars.priya, 'GET', '/api/machines?archived=include');
+    const all = await callApi<{ machines: { id: number }[] }>(jars.ada, 'GET', '/api/machines?archived=include');
     expect(all.body.machines.some((m) => m.id === machine.id)).toBe(true);
-    const edit = await callApi<ErrorBody>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, { cornerToleranceMm: 0.05 });
+    const edit = await callApi<ErrorBody>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, { cornerToleranceMm: 0.05 });
     expect(edit.status).toBe(409);
-    const restored = await callApi<MachineBody>(jars.priya, 'PATCH', `/api/machines/${machine.id}`, { archived: false });
+    const restored = await callApi<MachineBody>(jars.ada, 'PATCH', `/api/machines/${machine.id}`, { archived: false });
     expect(restored.body.machine.archivedAt).toBeNull();
   });
 
@@ -264,7 +264,7 @@ describe('archive instead of delete', () => {
       status: 'failed', error: 'test row, never computed',
     });
     try {
-      const removed = await callApi<{ result: string }>(jars.priya, 'DELETE', `/api/machines/${machine.id}`);
+      const removed = await callApi<{ result: string }>(jars.ada, 'DELETE', `/api/machines/${machine.id}`);
       expect(removed.body.result).toBe('archived');
       expect((await read(machine.id)).machine.archivedAt).not.toBeNull();
     } finally {
@@ -277,9 +277,9 @@ describe('archive instead of delete', () => {
 
   it('a machine nothing refers to is deleted with its tools and versions', async () => {
     const machine = await create('Deleted');
-    const removed = await callApi<{ result: string }>(jars.priya, 'DELETE', `/api/machines/${machine.id}`);
+    const removed = await callApi<{ result: string }>(jars.ada, 'DELETE', `/api/machines/${machine.id}`);
     expect(removed.body.result).toBe('deleted');
-    expect((await callApi(jars.priya, 'GET', `/api/machines/${machine.id}`)).status).toBe(404);
+    expect((await callApi(jars.ada, 'GET', `/api/machines/${machine.id}`)).status).toBe(404);
     const rows = await dbm.db.select().from(s.machineVersions).where(eq(s.machineVersions.machineId, machine.id));
     expect(rows).toEqual([]);
   });
@@ -306,7 +306,7 @@ describe("another shop's ids answer 404", () => {
 
   it("a tool of another machine of the same shop is 404 too, and the other shop's rows are untouched", async () => {
     const mine = await create('Tool owner');
-    const answer = await callApi<ErrorBody>(jars.priya, 'PATCH', `/api/machines/${mine.id}/tools/${other.toolId}`, { diameterMm: 8 });
+    const answer = await callApi<ErrorBody>(jars.ada, 'PATCH', `/api/machines/${mine.id}/tools/${other.toolId}`, { diameterMm: 8 });
     expect(answer.status).toBe(404);
     const [tool] = await dbm.db.select().from(s.tools).where(eq(s.tools.id, other.toolId));
     const [machine] = await dbm.db.select().from(s.machines).where(eq(s.machines.id, other.machineId));
@@ -318,7 +318,7 @@ describe("another shop's ids answer 404", () => {
 });
 
 describe('roles', () => {
-  it.each(['tomas', 'lena'] as const)('%s may read machines and materials but gets 403 on every write', async (who) => {
+  it.each(['priya', 'tomas', 'lena'] as const)('%s may read machines and materials but gets 403 on every write (set-up is for the admin alone, PRODUCT.md step 1)', async (who) => {
     const target = await create(`Role target ${who}`);
     const toolId = target.tools[0].id;
     expect((await callApi(jars[who], 'GET', `/api/machines/${target.id}`)).status).toBe(200);
@@ -356,14 +356,14 @@ describe('roles', () => {
 
 describe('materials', () => {
   it('adds, changes and removes one; refuses to remove one a job uses', async () => {
-    const created = await callApi<{ material: { id: number } }>(jars.priya, 'POST', '/api/materials', {
+    const created = await callApi<{ material: { id: number } }>(jars.ada, 'POST', '/api/materials', {
       name: `${PREFIX}ABS 4 mm`, thicknessMm: 4, sheetWidthMm: 1000, sheetLengthMm: 2000, costPerSheetMinor: 4250,
     });
     expect(created.status).toBe(201);
     const id = created.body.material.id;
-    const changed = await callApi<{ material: { costPerSheetMinor: number } }>(jars.priya, 'PATCH', `/api/materials/${id}`, { costPerSheetMinor: 4400 });
+    const changed = await callApi<{ material: { costPerSheetMinor: number } }>(jars.ada, 'PATCH', `/api/materials/${id}`, { costPerSheetMinor: 4400 });
     expect(changed.body.material.costPerSheetMinor).toBe(4400);
-    const bad = await callApi<ErrorBody>(jars.priya, 'POST', '/api/materials', { name: `${PREFIX}bad`, thicknessMm: 0, sheetWidthMm: 7000, sheetLengthMm: 2000, costPerSheetMinor: 1.5 });
+    const bad = await callApi<ErrorBody>(jars.ada, 'POST', '/api/materials', { name: `${PREFIX}bad`, thicknessMm: 0, sheetWidthMm: 7000, sheetLengthMm: 2000, costPerSheetMinor: 1.5 });
     expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields ?? {}).sort()).toEqual(['costPerSheetMinor', 'sheetWidthMm', 'thicknessMm']);
 
@@ -371,12 +371,12 @@ describe('materials', () => {
       shopId: shopA, title: `${PREFIX}job on ABS`, customerId: customerA, materialId: id,
       sheetWidthMm: 1000, sheetLengthMm: 2000, sheetThicknessMm: 4, holdDown: 'clamps', quantity: 1,
     });
-    const inUse = await callApi<ErrorBody>(jars.priya, 'DELETE', `/api/materials/${id}`);
+    const inUse = await callApi<ErrorBody>(jars.ada, 'DELETE', `/api/materials/${id}`);
     expect(inUse.status).toBe(409);
     expect(inUse.body.error.message).toMatch(/1 job uses it/);
     await dbm.db.delete(s.jobs).where(and(eq(s.jobs.shopId, shopA), eq(s.jobs.materialId, id)));
-    const removed = await callApi<{ result: string }>(jars.priya, 'DELETE', `/api/materials/${id}`);
+    const removed = await callApi<{ result: string }>(jars.ada, 'DELETE', `/api/materials/${id}`);
     expect(removed.body.result).toBe('deleted');
-    expect((await callApi(jars.priya, 'GET', `/api/materials/${id}`)).status).toBe(404);
+    expect((await callApi(jars.ada, 'GET', `/api/materials/${id}`)).status).toBe(404);
   });
 });

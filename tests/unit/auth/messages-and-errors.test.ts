@@ -25,7 +25,8 @@ describe('roles in sentences', () => {
 
   // expected values from the role table in the header of lib/auth/roles.ts
   it('name the roles that may do an action, from the role table', () => {
-    expect(whoMay('machines:write', true)).toBe('An admin or a programmer');
+    expect(whoMay('machines:write', true)).toBe('An admin');
+    expect(whoMay('jobs:write', true)).toBe('An admin or a programmer');
     expect(whoMay('estimates:write')).toBe('an admin, a programmer or an estimator');
     expect(whoMay('jobs:write')).toBe('an admin or a programmer');
     expect(whoMay('users:write')).toBe('an admin');

@@ -3,11 +3,10 @@
 // table of who uses Kerfcast for what, and the steps of "The main job, end to end" (1 Set-up
 // by the admin: users, machine profiles, tools, materials; 2 Job by the programmer; the
 // estimator's quote; the operator's run), restated in docs/references.md §9. A row marked
-// "brief:" follows PRODUCT.md; "inferred:" is our reading where it says nothing. Where this
-// matrix differs from PRODUCT.md (docs/references.md §9 lists it until one side is
-// corrected): machines:write and materials:write for the programmer, where PRODUCT.md gives
-// machine profiles and materials to the admin's set-up alone. estimates:write for the
-// estimator (asking for an estimate on another machine) is inferred, not stated there.
+// "brief:" follows PRODUCT.md; "inferred:" is our reading where it says nothing.
+// estimates:write for the estimator (asking for an estimate on another machine) is inferred,
+// not stated there. Machine profiles, tools and materials are written by the admin alone, as
+// the brief's step 1 (Set-up) says; the programmer only chooses a profile for a job.
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -32,9 +31,9 @@ const MATRIX: Record<Action, [boolean, boolean, boolean, boolean]> = {
   'estimates:read':          [Y, Y, Y, Y],
   'estimates:write':         [Y, Y, Y, N],
   'machines:read':           [Y, Y, Y, Y],
-  'machines:write':          [Y, Y, N, N], // differs from PRODUCT.md (Set-up is the admin's): see the header
+  'machines:write':          [Y, N, N, N], // brief: step 1, Set-up (admin): machine profiles and the tool library
   'materials:read':          [Y, Y, Y, Y], // brief: the operator knows the sheet; materials prefill jobs
-  'materials:write':         [Y, Y, N, N], // differs from PRODUCT.md (Set-up, admin, lists materials): kept with machines:write
+  'materials:write':         [Y, N, N, N], // brief: step 1, Set-up (admin) lists the materials
   'customers:read':          [Y, Y, Y, N],
   'customers:write':         [Y, Y, Y, N],
   'users:read':              [Y, N, N, N],
