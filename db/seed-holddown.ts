@@ -5,13 +5,12 @@
 // start. The estimate's per-method analysis then shows vacuum ruled out part by part (each
 // part's area is too small for Router 1's 61 kPa table against the side force) and tape and
 // glue suggested. Idempotent: a job that already has the program is left as it is.
-import { createHash } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { PRICE_TAG_NEST_NAME, priceTagNest } from '@/fixtures/price-tag-nest';
 import { jobEstimateSettings, requestEstimate } from '@/lib/estimate-server/request';
-import { putObject } from '@/lib/storage/s3';
 import type { Tx } from './queries/machines';
-import { jobEvents, jobs, programs, programVersions, users } from './schema';
+import { storeSeedProgram } from './seed-program';
+import { jobEvents, jobs, programs, users } from './schema';
 
 export const HOLD_DOWN_DEMO_JOB = 'Shelf-edge price-tag holders';
 
@@ -23,16 +22,7 @@ export async function seedHoldDownDemo(tx: Tx, shopId: number): Promise<number |
   if (existing) return null;
   const [priya] = await tx.select({ id: users.id }).from(users).where(and(eq(users.shopId, shopId), eq(users.role, 'programmer')));
   const bytes = Buffer.from(priceTagNest().text, 'utf8');
-  const sha256 = createHash('sha256').update(bytes).digest('hex');
-  const [{ id: programId }] = await tx.insert(programs).values({ shopId, jobId: job.id, name: PRICE_TAG_NEST_NAME, latestVersion: 1 }).$returningId();
-  const objectKey = `shops/${shopId}/jobs/${job.id}/programs/${programId}/v1-${sha256.slice(0, 16)}.nc`;
-  await putObject(objectKey, bytes, 'text/plain; charset=utf-8');
-  const lines = bytes.toString('utf8').split('\n').length;
-  const [{ id: versionId }] = await tx
-    .insert(programVersions)
-    .values({ shopId, programId, version: 1, objectKey, sha256, bytes: bytes.length, lines, uploadedBy: priya?.id ?? null })
-    .$returningId();
-  await tx.insert(jobEvents).values({ shopId, jobId: job.id, userId: priya?.id ?? null, kind: 'program-uploaded', detail: `${PRICE_TAG_NEST_NAME}, version 1` });
+  const { programId, versionId, sha256 } = await storeSeedProgram(tx, { shopId, jobId: job.id, name: PRICE_TAG_NEST_NAME, bytes, uploadedBy: priya?.id ?? null });
   if (job.status === 'draft') {
     await tx.update(jobs).set({ status: 'programmed' }).where(eq(jobs.id, job.id));
     await tx.insert(jobEvents).values({ shopId, jobId: job.id, userId: priya?.id ?? null, kind: 'status', detail: 'draft>programmed' });

@@ -9,15 +9,14 @@
 // so every seed gives the same history. Two runs per machine are interrupted and one is
 // voided, as the statistics must leave them out. Idempotent: a program that already has runs
 // is left as it is.
-import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { and, count, eq } from 'drizzle-orm';
 import { interpret } from '@/lib/gcode';
 import { estimate, stockTopZ } from '@/lib/kinematics';
 import { ensureMachineVersion, jobEstimateSettings, requestEstimate } from '@/lib/estimate-server/request';
-import { putObject } from '@/lib/storage/s3';
 import type { Tx } from './queries/machines';
+import { storeSeedVersion } from './seed-program';
 import { jobs, machines, programs, programVersions, runChanges, runEvents, runs, users } from './schema';
 
 interface History {
@@ -67,7 +66,6 @@ export async function seedRuns(tx: Tx, shopId: number, today: Date = new Date())
     if (!job || !machine) continue;
 
     const bytes = readFileSync(path.join(fixturesDir, history.fixture));
-    const sha256 = createHash('sha256').update(bytes).digest('hex');
     let [program] = await tx.select().from(programs).where(and(eq(programs.jobId, job.id), eq(programs.name, history.fixture)));
     if (!program) {
       const [{ id }] = await tx.insert(programs).values({ shopId, jobId: job.id, name: history.fixture, latestVersion: 1 }).$returningId();
@@ -75,12 +73,10 @@ export async function seedRuns(tx: Tx, shopId: number, today: Date = new Date())
     }
     let [version] = await tx.select().from(programVersions).where(and(eq(programVersions.programId, program.id), eq(programVersions.version, 1)));
     if (!version) {
-      const objectKey = `shops/${shopId}/jobs/${job.id}/programs/${program.id}/v1-${sha256.slice(0, 16)}${path.extname(history.fixture)}`;
-      await putObject(objectKey, bytes, 'text/plain; charset=utf-8');
-      const lines = bytes.toString('utf8').split('\n').length;
-      const [{ id }] = await tx.insert(programVersions).values({ shopId, programId: program.id, version: 1, objectKey, sha256, bytes: bytes.length, lines }).$returningId();
-      [version] = await tx.select().from(programVersions).where(eq(programVersions.id, id));
+      const { versionId } = await storeSeedVersion(tx, { shopId, jobId: job.id, programId: program.id, name: history.fixture, bytes, uploadedBy: null });
+      [version] = await tx.select().from(programVersions).where(eq(programVersions.id, versionId));
     }
+    const sha256 = version.sha256;
     const [{ n }] = await tx.select({ n: count() }).from(runs).where(eq(runs.programId, program.id));
     if (Number(n) > 0) continue;
 

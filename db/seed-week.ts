@@ -9,15 +9,14 @@
 // Idempotent: a job that exists keeps its rows; only a due date the calendar has passed by
 // (a week or more ago, while the job still waits) is moved forward again by the same rule, so
 // the demo stays current on a database seeded weeks ago.
-import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { and, eq, inArray } from 'drizzle-orm';
 import { jobEstimateSettings, requestEstimate } from '@/lib/estimate-server/request';
 import { isoWeekDays } from '@/lib/reports/dashboard-figures';
-import { putObject } from '@/lib/storage/s3';
 import type { Tx } from './queries/machines';
-import { customers, jobEvents, jobs, machines, materials, programs, programVersions, users } from './schema';
+import { storeSeedProgram } from './seed-program';
+import { customers, jobs, machines, materials, programs, users } from './schema';
 import type { JobStatus } from '@/lib/validation/enums';
 
 interface WeekJob {
@@ -119,16 +118,7 @@ export async function seedWeekJobs(tx: Tx, shopId: number, today: Date = new Dat
     const [existing] = await tx.select({ id: programs.id }).from(programs).where(and(eq(programs.jobId, job.id), eq(programs.name, name)));
     if (existing) continue;
     const bytes = readFileSync(path.join(fixturesDir, w.fixture));
-    const sha256 = createHash('sha256').update(bytes).digest('hex');
-    const [{ id: programId }] = await tx.insert(programs).values({ shopId, jobId: job.id, name, latestVersion: 1 }).$returningId();
-    const objectKey = `shops/${shopId}/jobs/${job.id}/programs/${programId}/v1-${sha256.slice(0, 16)}${path.extname(name)}`;
-    await putObject(objectKey, bytes, 'text/plain; charset=utf-8');
-    const lines = bytes.toString('utf8').split('\n').length;
-    const [{ id: versionId }] = await tx
-      .insert(programVersions)
-      .values({ shopId, programId, version: 1, objectKey, sha256, bytes: bytes.length, lines, uploadedBy: priya?.id ?? null })
-      .$returningId();
-    await tx.insert(jobEvents).values({ shopId, jobId: job.id, userId: priya?.id ?? null, kind: 'program-uploaded', detail: `${name}, version 1` });
+    const { programId, versionId, sha256 } = await storeSeedProgram(tx, { shopId, jobId: job.id, name, bytes, uploadedBy: priya?.id ?? null });
     await requestEstimate(tx, {
       shopId,
       programId,
