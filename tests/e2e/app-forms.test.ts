@@ -4,9 +4,9 @@
 // sign in.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { DEMO_PASSWORD, E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
+import { E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
 import { CustomersPage } from './pages/customers-page';
-import { SignInPage } from './pages/sign-in-page';
+import { SignInPage, signInAs } from './pages/sign-in-page';
 import { UsersPage } from './pages/users-page';
 import { launchBrowser, type BrowserSession } from './support/browser';
 
@@ -44,16 +44,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function signedInPage(email: string) {
-  await browser.context.clearCookies();
-  const page = await browser.context.newPage();
-  const signIn = new SignInPage(page, server.baseUrl);
-  await signIn.open();
-  await signIn.signIn(email, DEMO_PASSWORD);
-  // admins and estimators land on the dashboard, the others on the jobs page
-  await page.waitForURL(/\/(dashboard|jobs)$/);
-  return page;
-}
+const signedInPage = (email: string) => signInAs(browser, server.baseUrl, email);
 
 describe('create customer (estimator)', () => {
   it('names empty and malformed fields, then adds the customer to the list', async () => {

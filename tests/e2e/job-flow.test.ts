@@ -10,11 +10,11 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq, inArray } from 'drizzle-orm';
-import { DEMO_PASSWORD, E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
+import { E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
 import { JobFormPage } from './pages/job-form-page';
 import { JobPage } from './pages/job-page';
 import { JobsPage } from './pages/jobs-page';
-import { SignInPage } from './pages/sign-in-page';
+import { signInAs } from './pages/sign-in-page';
 import { launchBrowser, type BrowserSession } from './support/browser';
 
 type DbModule = typeof import('@/db/client');
@@ -63,16 +63,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function signedInPage(email: string) {
-  await browser.context.clearCookies();
-  const page = await browser.context.newPage();
-  const signIn = new SignInPage(page, server.baseUrl);
-  await signIn.open();
-  await signIn.signIn(email, DEMO_PASSWORD);
-  // admins and estimators land on the dashboard, the others on the jobs page
-  await page.waitForURL(/\/(dashboard|jobs)$/);
-  return page;
-}
+const signedInPage = (email: string) => signInAs(browser, server.baseUrl, email);
 
 interface StoredReport {
   totalSeconds: number;

@@ -10,9 +10,9 @@ import path from 'node:path';
 import fs from 'node:fs';
 import { eq, like } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
+import { E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
 import { MachineEditPage, MachinePage, MachinesListPage, MaterialsPage, ToolFormPage } from './pages/machines-page';
-import { SignInPage } from './pages/sign-in-page';
+import { signInAs } from './pages/sign-in-page';
 import { launchBrowser, type BrowserSession } from './support/browser';
 
 type DbModule = typeof import('@/db/client');
@@ -69,16 +69,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function signedInPage(email: string) {
-  await browser.context.clearCookies();
-  const page = await browser.context.newPage();
-  const signIn = new SignInPage(page, server.baseUrl);
-  await signIn.open();
-  await signIn.signIn(email, DEMO_PASSWORD);
-  // admins and estimators land on the dashboard, the others on the jobs page
-  await page.waitForURL(/\/(dashboard|jobs)$/);
-  return page;
-}
+const signedInPage = (email: string) => signInAs(browser, server.baseUrl, email);
 
 describe('machine profile (admin)', () => {
   it('names a bad value at its field and focuses it, then saves 0.03 mm as version 2', async () => {

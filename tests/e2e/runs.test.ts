@@ -16,9 +16,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { eq, inArray } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
+import { E2E_PORT, startAppServer, type AppServer } from '../integration/support/app-server';
 import { CalibrationPanel, EstimateTimesPart, ProgramRunsSection } from './pages/runs-page';
-import { SignInPage } from './pages/sign-in-page';
+import { signInAs } from './pages/sign-in-page';
 import { launchBrowser, type BrowserSession } from './support/browser';
 
 type DbModule = typeof import('@/db/client');
@@ -164,15 +164,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function signedInPage(email: string) {
-  await browser.context.clearCookies();
-  const page = await browser.context.newPage();
-  const signIn = new SignInPage(page, server.baseUrl);
-  await signIn.open();
-  await signIn.signIn(email, DEMO_PASSWORD);
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-  return page;
-}
+const signedInPage = (email: string) => signInAs(browser, server.baseUrl, email);
 
 describe('the run timer (operator)', () => {
   it('starts, survives a reload still running, pauses, resumes and finishes', async () => {

@@ -1,5 +1,7 @@
 // Page object of /sign-in.
 import type { Page } from 'playwright-core';
+import { DEMO_PASSWORD } from '../../integration/support/app-server';
+import type { BrowserSession } from '../support/browser';
 
 export class SignInPage {
   constructor(private readonly page: Page, private readonly baseUrl: string) {}
@@ -29,4 +31,19 @@ export class SignInPage {
       .then(() => true)
       .catch(() => false);
   }
+}
+
+/**
+ * A new page of the browser's context, its cookies cleared, signed in as `email` with the demo
+ * password and waiting on its landing page (admins and estimators land on the dashboard, the
+ * others on the jobs page).
+ */
+export async function signInAs(browser: BrowserSession, baseUrl: string, email: string): Promise<Page> {
+  await browser.context.clearCookies();
+  const page = await browser.context.newPage();
+  const signIn = new SignInPage(page, baseUrl);
+  await signIn.open();
+  await signIn.signIn(email, DEMO_PASSWORD);
+  await page.waitForURL(/\/(dashboard|jobs)$/);
+  return page;
 }
